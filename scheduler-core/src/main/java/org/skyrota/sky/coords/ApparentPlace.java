@@ -6,12 +6,14 @@ import org.skyrota.sky.time.TimeScales;
  * Mean place (ICRS / J2000) of a star-like target to its geocentric apparent place of date.
  *
  * <p>Steps, all on unit vectors: space motion is taken as linear proper motion on the sky
- * from J2000.0 (no parallax or radial velocity); precession IAU 2006 ({@link Precession});
- * nutation IAU 1980 ({@link Nutation}) as the rotation R1(−ε−Δε)·R3(−Δψ)·R1(ε); annual
- * aberration to first order with the Earth's velocity of an elliptic orbit (Meeus,
- * Astronomical Algorithms, 2nd ed., formula 23.3 in vector form, including the terms in the
- * eccentricity: κ = 20.49552″). The ICRS–J2000 frame bias (23 mas), light deflection by the
- * Sun and the annual parallax are neglected, all below 0.05″ for targets away from the Sun.
+ * from J2000.0 (no radial velocity); precession IAU 2006 ({@link Precession}); nutation
+ * IAU 1980 ({@link Nutation}) as the rotation R1(−ε−Δε)·R3(−Δψ)·R1(ε); annual aberration to
+ * first order with the Earth's velocity in an elliptic orbit (Meeus, Astronomical Algorithms,
+ * 2nd ed., ch. 23, the formula with κ = 20.49552″ and the eccentricity terms, in vector form).
+ *
+ * <p>Neglected: the ICRS–J2000 frame bias (23 mas), gravitational light deflection by the Sun
+ * (4 mas at 90° from it, 1.75″ at its limb), the annual parallax (below 0.8″ even for the
+ * nearest stars) and the second-order aberration terms (below 1 mas).
  *
  * <p>Allocation-free: the caller supplies {@code out}.
  */
