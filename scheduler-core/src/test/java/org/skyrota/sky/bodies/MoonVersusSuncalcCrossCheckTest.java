@@ -14,7 +14,7 @@ import org.skyrota.sky.time.TimeScales;
 
 /**
  * The Moon against {@code org.shredzone.commons:commons-suncalc} 3.11 (reference library, test scope), at
- * 2,000 seeded random sites and instants between 2000 and 2040.
+ * 2,000 reproducible pseudo-random sites and instants between 2000 and 2040.
  *
  * <p>What suncalc computes: its Moon is the short series of Montenbruck and Pfleger ("Astronomy on the
  * Personal Computer", 14 terms in longitude) rotated with the mean obliquity and the mean sidereal time;
