@@ -16,8 +16,11 @@ public final class LeapSeconds {
     public static final Instant TABLE_START = Instant.parse("1972-01-01T00:00:00Z");
 
     /**
-     * End of the period for which the table is known to hold (no leap second announced
-     * before it). Beyond it {@link TimeScales} models UT1 with ΔT rather than assuming
+     * End of the period for which the table is taken to hold. IERS Bulletin C is published every
+     * six months and announces the next possible leap second; none has been inserted since
+     * 2017-01-01, and the value here assumes none before 2027 (the bulletins read when this was
+     * written reached mid-2026; check the latest Bulletin C and move this date, or add a row, when
+     * a new one appears). Beyond it {@link TimeScales} models UT1 with ΔT rather than assuming
      * UT1 = UTC.
      */
     public static final Instant TABLE_VALID_UNTIL = Instant.parse("2027-01-01T00:00:00Z");
