@@ -18,9 +18,10 @@ public final class LeapSeconds {
     /**
      * End of the period for which the table is taken to hold. IERS Bulletin C is published every
      * six months and announces the next possible leap second; none has been inserted since
-     * 2017-01-01, and the value here assumes none before 2027 (the bulletins read when this was
-     * written reached mid-2026; check the latest Bulletin C and move this date, or add a row, when
-     * a new one appears). Beyond it {@link TimeScales} models UT1 with ΔT rather than assuming
+     * 2017-01-01. The latest bulletin known when this was written (No. 70, July 2025, from memory)
+     * excluded one at the end of 2025; 2027-01-01 assumes that the following bulletins announced
+     * none for mid-2026 and the end of 2026 either. Check the latest Bulletin C and move this date,
+     * or add a row, when a new one appears. Beyond it {@link TimeScales} models UT1 with ΔT rather than assuming
      * UT1 = UTC.
      */
     public static final Instant TABLE_VALID_UNTIL = Instant.parse("2027-01-01T00:00:00Z");
