@@ -55,6 +55,15 @@ public final class SiderealTime {
         return normalize(gmstRad(jdUt1, jdTt) + equationOfEquinoxesRad(jdTt));
     }
 
+    /**
+     * Local apparent sidereal time: {@link #gastRad} plus the east longitude, in [0, 2π).
+     *
+     * @param lonEastRad longitude, positive east
+     */
+    public static double localApparentRad(double jdUt1, double jdTt, double lonEastRad) {
+        return normalize(gastRad(jdUt1, jdTt) + lonEastRad);
+    }
+
     /** The equation of the equinoxes used by {@link #gastRad}, radians. */
     public static double equationOfEquinoxesRad(double jdTt) {
         double t = TimeScales.centuriesTt(jdTt);
