@@ -51,6 +51,7 @@ public final class PluginRegistry {
     public static final String FIXED_KIND = "fixed";
 
     private static final Pattern KIND = Pattern.compile("[a-z][a-z0-9\\-]{0,31}");
+    private static final Pattern SERVICES_FILE_IN_MESSAGE = Pattern.compile("((?:jar:)?file:[^\\s]*META-INF/services/[^\\s:]+)");
     private static final Pattern PROVIDER_IN_MESSAGE = Pattern.compile("Provider (\\S+)|(\\S+) not a subtype");
     /** Guards against a ServiceLoader iterator that fails without advancing. */
     private static final int MAX_ERRORS_PER_SERVICE = 1000;
@@ -187,7 +188,7 @@ public final class PluginRegistry {
                 } catch (ServiceConfigurationError | LinkageError e) {
                     errors++;
                     String provider = providerIn(e);
-                    String source = provider == null ? "class path" : sources.getOrDefault(provider, "class path");
+                    String source = provider != null ? sources.getOrDefault(provider, "class path") : servicesFileIn(e);
                     problems.add(new PluginLoadReport(source, provider, null, describe(e)));
                     continue;
                 }
@@ -319,6 +320,21 @@ public final class PluginRegistry {
             // fall through
         }
         return text;
+    }
+
+    /** A malformed services file is named in the message by its URL; the jar is the source. */
+    private static String servicesFileIn(Throwable e) {
+        if (e.getMessage() != null) {
+            Matcher m = SERVICES_FILE_IN_MESSAGE.matcher(e.getMessage());
+            if (m.find()) {
+                try {
+                    return sourceOf(new URL(m.group(1)));
+                } catch (IOException ignored) {
+                    // fall through
+                }
+            }
+        }
+        return "class path";
     }
 
     private static String providerIn(Throwable e) {

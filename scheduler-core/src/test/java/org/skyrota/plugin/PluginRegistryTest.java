@@ -125,6 +125,16 @@ class PluginRegistryTest {
                 .service(ConditionsFeed.class, "test.boom.BoomFeed")
                 .writeTo(plugins.resolve("f-throws.jar"), work);
 
+        // a class that exists but does not implement the interface it is listed under
+        new PluginJarBuilder()
+                .source("test.wrong.NotAnExporter", "package test.wrong; public final class NotAnExporter { }")
+                .service(PlanExporter.class, "test.wrong.NotAnExporter")
+                .writeTo(plugins.resolve("g-not-a-subtype.jar"), work);
+        // a services file whose line is not a class name at all
+        new PluginJarBuilder()
+                .service(PlanExporter.class, "this is not a class name")
+                .writeTo(plugins.resolve("h-bad-services-file.jar"), work);
+
         try (PluginJars jars = PluginJars.open(plugins, getClass().getClassLoader())) {
             PluginRegistry registry = PluginRegistry.load(jars.classLoader(), jars.problems(), PluginRegistry.CORE_SERVICES);
 
@@ -136,7 +146,14 @@ class PluginRegistryTest {
             assertThat(registry.requestImporters()).isEmpty();
 
             List<PluginLoadReport> problems = registry.problems();
-            assertThat(problems).hasSize(5);
+            assertThat(problems).hasSize(7);
+            assertThat(problems).filteredOn(p -> p.source().endsWith("g-not-a-subtype.jar")).singleElement()
+                    .satisfies(p -> {
+                        assertThat(p.provider()).isEqualTo("test.wrong.NotAnExporter");
+                        assertThat(p.problem()).contains("not a subtype");
+                    });
+            assertThat(problems).filteredOn(p -> p.source().endsWith("h-bad-services-file.jar")).singleElement()
+                    .satisfies(p -> assertThat(p.problem()).contains("syntax"));
             assertThat(problems).filteredOn(p -> p.source().endsWith("c-corrupt.jar")).singleElement()
                     .satisfies(p -> assertThat(p.problem()).startsWith("not a readable jar"));
             assertThat(jars.jars()).noneMatch(j -> j.endsWith("c-corrupt.jar"));
