@@ -95,8 +95,14 @@ public final class PluginRegistry {
      * version, duplicate ids). Each instance is registered under every core interface it implements.
      */
     public static PluginRegistry of(Collection<? extends SkyrotaPlugin> plugins) {
+        return of(plugins, CORE_SERVICES);
+    }
+
+    /** As {@link #of(Collection)}, for the given plugin interfaces (for example with the score-rule interface). */
+    public static PluginRegistry of(Collection<? extends SkyrotaPlugin> plugins,
+            Collection<Class<? extends SkyrotaPlugin>> services) {
         Builder builder = new Builder(List.of());
-        for (Class<? extends SkyrotaPlugin> service : CORE_SERVICES) {
+        for (Class<? extends SkyrotaPlugin> service : new LinkedHashSet<>(services)) {
             for (SkyrotaPlugin plugin : plugins) {
                 if (service.isInstance(plugin)) {
                     builder.accept(service, plugin, "given");
