@@ -33,12 +33,17 @@ public final class VisibilityBench {
             BatchVisibility.compute(sites, warm, c, LocalDate.of(2026, 1, 1), LocalDate.of(2026, 2, 28));
         }
 
+        var os = (com.sun.management.OperatingSystemMXBean) java.lang.management.ManagementFactory
+                .getOperatingSystemMXBean();
+        long cpu0 = os.getProcessCpuTime();
         long t0 = System.nanoTime();
         BatchVisibility.Result r = BatchVisibility.compute(sites, list, c, from, to);
         double seconds = (System.nanoTime() - t0) / 1e9;
+        double cpuSeconds = (os.getProcessCpuTime() - cpu0) / 1e9;
         long targetNights = (long) targets * sites.size() * nights;
         System.out.printf("BENCH visibility targets=%d sites=%d nights=%d seconds=%.3f targetNightsPerSecond=%.0f"
-                + " windows=%d cores=%d%n", targets, sites.size(), nights, seconds, targetNights / seconds,
-                r.windowCount(), Runtime.getRuntime().availableProcessors());
+                + " windows=%d cores=%d cpuSeconds=%.3f loadAverage=%.1f%n", targets, sites.size(), nights, seconds,
+                targetNights / seconds, r.windowCount(), Runtime.getRuntime().availableProcessors(), cpuSeconds,
+                os.getSystemLoadAverage());
     }
 }
