@@ -14,15 +14,18 @@ import org.skyrota.sky.time.TimeScales;
 
 /**
  * The Moon against {@code org.shredzone.commons:commons-suncalc} 3.11 (reference library, test scope), at
- * 2,000 seeded random sites and instants between 2000 and 2040.
+ * 2,000 reproducible pseudo-random sites and instants between 2000 and 2040.
  *
  * <p>What suncalc computes: its Moon is the short series of Montenbruck and Pfleger ("Astronomy on the
  * Personal Computer", 14 terms in longitude) rotated with the mean obliquity and the mean sidereal time;
  * its README states that results have "an accuracy of about a minute" and are "probably not sufficient for
  * astronomical purposes". Its {@code MoonPosition} applies no diurnal parallax: its true altitude is the
  * geocentric one (shown below: it agrees with our geocentric altitude, not with our topocentric one, which
- * is lower by up to the Moon's horizontal parallax of about 1°). So the comparison is geocentric with
- * geocentric, and our topocentric correction is checked separately (TopocentricTest).
+ * is lower by up to the Moon's horizontal parallax of about 1°). Its topocentric option (a location given
+ * to {@code MoonIllumination}) lowers the altitude by the horizontal parallax minus the dip of the horizon
+ * whatever the altitude (read from the 3.11 jar's {@code ExtendedMath.parallax}), which is not a rigorous
+ * reference either. So the comparison is geocentric with geocentric, and our topocentric correction is
+ * checked separately (TopocentricTest, and the NREL SPA example and cross-check for the Sun).
  *
  * <p>Tolerances from that accuracy: the short series errs by a few arcminutes (its largest neglected terms
  * are of order 100″); nutation, which it leaves out, adds up to 17″. 0.1° (6′) for the altitude and for

@@ -16,7 +16,7 @@ import org.skyrota.sky.time.TimeScales;
 
 /**
  * The topocentric Sun against the NREL SPA as implemented by {@code net.e175.klaus:solarpositioning} 2.0.3
- * (reference library, test scope), at 2,000 seeded random sites and instants between 1950 and 2050.
+ * (reference library, test scope), at 2,000 reproducible pseudo-random sites and instants between 1950 and 2050.
  *
  * <p>Tolerance: the SPA report (Reda and Andreas, NREL/TP-560-34302) gives its uncertainty as ±0.0003°.
  * Both sides evaluate the same truncated VSOP87 and the same ΔT (passed explicitly); the differences left
