@@ -42,8 +42,8 @@ public final class BatchVisibility {
     /** Bound on the Sun's motion among the stars, 0.042°/h (common practice, no source), rounded up. */
     static final double SUN_RATE_DEG_PER_SECOND = 0.05 / 3600;
     private static final double RESOLUTION_SECONDS = 0.25;
-    /** Cell length of the separation check once the body is within reach, seconds. */
-    private static final double CELL_SECONDS = 600;
+    /** Cell lengths of the separation check once the body is within reach, seconds. */
+    private static final double[] CELL_SECONDS = {3600, 600};
     private static final double HORIZON_STEP_SECONDS = 60;
     private static final double BRIGHTNESS_STEP_SECONDS = 120;
     private static final int CHUNK = 32;
@@ -563,13 +563,20 @@ public final class BatchVisibility {
             if (limit + rate * half < 180 && cosSeparation(moon, s + half) <= Math.cos(Math.toRadians(limit + rate * half))) {
                 return nbad;
             }
-            // Otherwise cells of CELL_SECONDS, each settled from its ends when it can be.
-            int cells = Math.max(1, (int) Math.ceil((e - s) / CELL_SECONDS));
+            // Otherwise hour-long cells, then ten-minute cells, each settled from its two ends
+            // when it can be, and halved down to the resolution where it cannot.
+            return cellPass(moon, s, e, 0, rate, limit, nbad);
+        }
+
+        private int cellPass(boolean moon, double s, double e, int level, double rate, double limit, int nbad) {
+            if (level == CELL_SECONDS.length) {
+                return bisectBad(moon, s, e, rate, limit, Math.cos(Math.toRadians(limit)), nbad);
+            }
+            int cells = Math.max(1, (int) Math.ceil((e - s) / CELL_SECONDS[level]));
             double cell = (e - s) / cells;
             double slack = rate * cell;
             double cosGood = limit + slack < 180 ? Math.cos(Math.toRadians(limit + slack)) : -2;
             double cosBad = limit - slack > 0 ? Math.cos(Math.toRadians(limit - slack)) : 2;
-            double cosLimit = Math.cos(Math.toRadians(limit));
             double left = s;
             double cLeft = cosSeparation(moon, s);
             for (int k = 1; k <= cells; k++) {
@@ -584,7 +591,7 @@ public final class BatchVisibility {
                 if (cLeft > cosBad || cRight > cosBad) {
                     nbad = appendBad(nbad, left, right);
                 } else {
-                    nbad = bisectBad(moon, left, right, rate, limit, cosLimit, nbad);
+                    nbad = cellPass(moon, left, right, level + 1, rate, limit, nbad);
                 }
                 left = right;
                 cLeft = cRight;
