@@ -47,6 +47,8 @@ public final class BatchVisibility {
     private static final double HORIZON_STEP_SECONDS = 60;
     private static final double BRIGHTNESS_STEP_SECONDS = 120;
     private static final int CHUNK = 32;
+    private static final double TWO_PI = 2 * Math.PI;
+    private static final double INV_TWO_PI = 1 / TWO_PI;
 
     private BatchVisibility() {
     }
@@ -367,7 +369,8 @@ public final class BatchVisibility {
                 n = applyHorizon(cur, n);
                 cur = b;
             }
-            if (n > 0 && moonSep && sn.moonUpCount > 0) {
+            if (n > 0 && moonSep && sn.moonUpCount > 0
+                    && vx * sn.moonMeanX + vy * sn.moonMeanY + vz * sn.moonMeanZ > sn.cosMoonClear) {
                 int nx = Intervals.intersect(cur, n, sn.moonUp, sn.moonUpCount, x);
                 int nbad = 0;
                 for (int k = 0; k < nx; k++) {
@@ -426,14 +429,15 @@ public final class BatchVisibility {
             if (cosH >= 1) {
                 return 0;
             }
-            double omega = sn.omegaRadPerSecond;
-            double half = halfArc(sinH, cosH) / omega;
-            double sid = 2 * Math.PI / omega;
+            double inv = sn.secondsPerRad;
+            double half = halfArc(sinH, cosH) * inv;
+            double sid = sn.siderealDaySeconds;
             double hm = sn.lstAtMidRad - alpha;
-            hm -= 2 * Math.PI * Math.rint(hm / (2 * Math.PI));
-            double tk = sn.tm - hm / omega;
-            while (tk - sid + half > sn.t0) {
-                tk -= sid;
+            hm -= TWO_PI * Math.rint(hm * INV_TWO_PI);
+            // The transit nearest the middle, then back to the earliest whose arc reaches the night.
+            double tk = sn.tm - hm * inv;
+            if (tk - sid + half > sn.t0) {
+                tk -= sid * (Math.ceil((tk + half - sn.t0) / sid) - 1);
             }
             int n = 0;
             for (; tk - half < sn.t1; tk += sid) {

@@ -35,6 +35,8 @@ final class SiteNightSky {
     final double tm;
     final double lstAtMidRad;
     final double omegaRadPerSecond;
+    final double secondsPerRad;
+    final double siderealDaySeconds;
     final double yearsSinceJ2000;
     /** J2000 to apparent of date: v = R u + beta, then normalised (row-major R). */
     final double[] rotation = new double[9];
@@ -58,6 +60,12 @@ final class SiteNightSky {
     double[] moonX;
     double[] moonY;
     double[] moonZ;
+    double moonMeanX;
+    double moonMeanY;
+    double moonMeanZ;
+    double moonConeRadiusDeg;
+    /** Cosine of (Moon separation limit + cone radius); NaN when the Moon is not needed. */
+    double cosMoonClear = Double.NaN;
     double[] moonPhaseDeg;
     double[] moonIllumination;
     double[] sunX;
@@ -78,6 +86,8 @@ final class SiteNightSky {
         double turns = 1.00273781191135448 * (t1 - t0) / 86400.0;
         double span = g1 - g0 + 2 * Math.PI * Math.rint(turns - (g1 - g0) / (2 * Math.PI));
         this.omegaRadPerSecond = span / (t1 - t0);
+        this.secondsPerRad = 1 / omegaRadPerSecond;
+        this.siderealDaySeconds = 2 * Math.PI / omegaRadPerSecond;
         this.lstAtMidRad = gm;
         double jdTtMid = TimeScales.jdTt(night.middle());
         this.yearsSinceJ2000 = (jdTtMid - TimeScales.J2000_JD) / 365.25;
@@ -174,6 +184,31 @@ final class SiteNightSky {
                 moonX[i] = cd * Math.cos(topo[0]);
                 moonY[i] = cd * Math.sin(topo[0]);
                 moonZ[i] = Math.sin(topo[1]);
+            }
+            // A cone around the Moon's mean direction that holds it all night: a target farther
+            // than the limit plus this radius is clear of the Moon all night (one dot product).
+            double mx = 0;
+            double my = 0;
+            double mz = 0;
+            for (int i = 0; i < gridCount; i++) {
+                mx += moonX[i];
+                my += moonY[i];
+                mz += moonZ[i];
+            }
+            double norm = Math.sqrt(mx * mx + my * my + mz * mz);
+            moonMeanX = mx / norm;
+            moonMeanY = my / norm;
+            moonMeanZ = mz / norm;
+            double minCos = 1;
+            for (int i = 0; i < gridCount; i++) {
+                minCos = Math.min(minCos, moonMeanX * moonX[i] + moonMeanY * moonY[i] + moonMeanZ * moonZ[i]);
+            }
+            // Between grid points the linear interpolation stays within the chord; 0.05° covers
+            // the curvature of the path over 20 minutes with a wide margin.
+            moonConeRadiusDeg = Math.toDegrees(Math.acos(Math.min(1, minCos))) + 0.05;
+            if (c.minMoonSeparationDeg().isPresent()) {
+                double reach = c.minMoonSeparationDeg().getAsDouble() + moonConeRadiusDeg;
+                cosMoonClear = reach < 180 ? Math.cos(Math.toRadians(reach)) : -2;
             }
             moonUp = new double[64];
             double[] scratch = new double[4];
