@@ -13,12 +13,15 @@ import org.slf4j.LoggerFactory;
 import org.springframework.beans.TypeMismatchException;
 import org.springframework.context.MessageSourceResolvable;
 import org.springframework.context.i18n.LocaleContextHolder;
+import org.springframework.dao.DataIntegrityViolationException;
+import org.springframework.data.core.PropertyReferenceException;
 import org.springframework.http.HttpHeaders;
 import org.springframework.http.HttpStatus;
 import org.springframework.http.HttpStatusCode;
 import org.springframework.http.ProblemDetail;
 import org.springframework.http.ResponseEntity;
 import org.springframework.http.converter.HttpMessageNotReadableException;
+import org.springframework.orm.ObjectOptimisticLockingFailureException;
 import org.springframework.validation.FieldError;
 import org.springframework.web.ErrorResponse;
 import org.springframework.web.bind.MethodArgumentNotValidException;
@@ -55,6 +58,44 @@ public class ProblemAdvice extends ResponseEntityExceptionHandler {
             problems.add(new FieldProblem(lastNode(v.getPropertyPath().toString()), v.getMessage()));
         }
         return badRequest(e, problems, request);
+    }
+
+    @ExceptionHandler(NotFoundException.class)
+    ResponseEntity<Object> notFound(NotFoundException e, WebRequest request) {
+        return problem(e, HttpStatus.NOT_FOUND, ProblemTypes.NOT_FOUND, "Not found", e.getMessage(), request);
+    }
+
+    @ExceptionHandler(StaleVersionException.class)
+    ResponseEntity<Object> staleVersion(StaleVersionException e, WebRequest request) {
+        ProblemDetail body = ProblemDetail.forStatusAndDetail(HttpStatus.CONFLICT, e.getMessage());
+        body.setType(ProblemTypes.STALE_VERSION);
+        body.setTitle("Edited against an old version");
+        body.setProperty("currentVersion", e.currentVersion());
+        return handleExceptionInternal(e, body, new HttpHeaders(), HttpStatus.CONFLICT, request);
+    }
+
+    @ExceptionHandler(ObjectOptimisticLockingFailureException.class)
+    ResponseEntity<Object> concurrentEdit(ObjectOptimisticLockingFailureException e, WebRequest request) {
+        // Two edits raced past the version check; the loser learns the version by reading again.
+        return problem(e, HttpStatus.CONFLICT, ProblemTypes.STALE_VERSION, "Edited against an old version",
+                "Someone else changed this at the same moment; read it again and repeat the edit.", request);
+    }
+
+    @ExceptionHandler(ConflictException.class)
+    ResponseEntity<Object> conflict(ConflictException e, WebRequest request) {
+        return problem(e, HttpStatus.CONFLICT, ProblemTypes.CONFLICT, "Conflict", e.getMessage(), request);
+    }
+
+    @ExceptionHandler(DataIntegrityViolationException.class)
+    ResponseEntity<Object> integrity(DataIntegrityViolationException e, WebRequest request) {
+        log.info("Refused a change that breaks a stored rule: {}", e.getMostSpecificCause().getMessage());
+        return problem(e, HttpStatus.CONFLICT, ProblemTypes.CONFLICT, "Conflict",
+                "The change clashes with stored data (a duplicate name, or something still in use).", request);
+    }
+
+    @ExceptionHandler(PropertyReferenceException.class)
+    ResponseEntity<Object> unknownSortProperty(PropertyReferenceException e, WebRequest request) {
+        return badRequest(e, List.of(new FieldProblem("sort", "cannot sort by '" + e.getPropertyName() + "'")), request);
     }
 
     @ExceptionHandler(Exception.class)
@@ -130,6 +171,13 @@ public class ProblemAdvice extends ResponseEntityExceptionHandler {
             }
         }
         return super.handleExceptionInternal(e, body, headers, status, request);
+    }
+
+    private ResponseEntity<Object> problem(Exception e, HttpStatus status, URI type, String title, String detail, WebRequest request) {
+        ProblemDetail body = ProblemDetail.forStatusAndDetail(status, detail);
+        body.setType(type);
+        body.setTitle(title);
+        return handleExceptionInternal(e, body, new HttpHeaders(), status, request);
     }
 
     private ResponseEntity<Object> badRequest(Exception e, List<FieldProblem> problems, WebRequest request) {

@@ -1,0 +1,84 @@
+package org.skyrota.web.site;
+
+import java.util.List;
+
+import org.skyrota.web.system.ConflictException;
+import org.skyrota.web.system.InvalidParametersException;
+import org.skyrota.web.system.FieldProblem;
+import org.skyrota.web.system.NotFoundException;
+import org.springframework.data.domain.Page;
+import org.springframework.data.domain.Pageable;
+import org.springframework.stereotype.Service;
+import org.springframework.transaction.annotation.Transactional;
+
+/** Reads and changes sites, one transaction per call. */
+@Service
+@Transactional
+public class SiteService {
+
+    static final String KIND = "site";
+
+    private final SiteRepository sites;
+
+    SiteService(SiteRepository sites) {
+        this.sites = sites;
+    }
+
+    @Transactional(readOnly = true)
+    public Page<Site> list(String nameContains, Pageable pageable) {
+        return nameContains == null || nameContains.isBlank()
+                ? sites.findAll(pageable)
+                : sites.findByNameContainingIgnoreCase(nameContains.trim(), pageable);
+    }
+
+    @Transactional(readOnly = true)
+    public Site get(long id) {
+        return sites.findById(id).orElseThrow(() -> new NotFoundException(KIND, id));
+    }
+
+    public Site create(SiteForm form) {
+        if (sites.existsByNameIgnoreCase(form.name().trim())) {
+            throw new ConflictException("A site named '" + form.name().trim() + "' exists already");
+        }
+        Site site = new Site(form.name().trim(), form.latitudeDeg(), form.longitudeDeg(), form.elevationM());
+        apply(form, site);
+        return sites.save(site);
+    }
+
+    public Site update(long id, SiteForm form) {
+        Site site = get(id);
+        requireVersionGiven(form.version());
+        site.requireVersion(KIND, form.version());
+        if (!site.getName().equalsIgnoreCase(form.name().trim()) && sites.existsByNameIgnoreCase(form.name().trim())) {
+            throw new ConflictException("A site named '" + form.name().trim() + "' exists already");
+        }
+        site.setName(form.name().trim());
+        site.setLocation(form.latitudeDeg(), form.longitudeDeg(), form.elevationM());
+        apply(form, site);
+        // Flush now so that the new version is known to the caller's response.
+        return sites.saveAndFlush(site);
+    }
+
+    public void delete(long id, Long version) {
+        Site site = get(id);
+        if (version != null) {
+            site.requireVersion(KIND, version);
+        }
+        sites.delete(site);
+        sites.flush();
+    }
+
+    private static void apply(SiteForm form, Site site) {
+        site.setTimeZone(form.timeZone() == null || form.timeZone().isBlank() ? null : form.timeZone().trim());
+        site.setDarkSkyZenithVMag(form.darkSkyZenithVMag());
+        site.setHorizon(form.horizon() == null ? List.of()
+                : form.horizon().stream().map(p -> new HorizonPoint(p.azimuthDeg(), p.altitudeDeg())).toList());
+    }
+
+    static void requireVersionGiven(Long version) {
+        if (version == null) {
+            throw new InvalidParametersException(List.of(new FieldProblem("version",
+                    "is required when editing: send the version you read")));
+        }
+    }
+}
