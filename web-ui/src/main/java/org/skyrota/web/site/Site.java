@@ -11,6 +11,7 @@ import jakarta.persistence.JoinColumn;
 import jakarta.persistence.OrderColumn;
 import jakarta.persistence.Table;
 
+import org.hibernate.annotations.BatchSize;
 import org.skyrota.web.system.StoredEntity;
 
 /** An observatory site: where it is, its clock, its horizon and how dark its sky is. */
@@ -39,6 +40,7 @@ public class Site extends StoredEntity {
     private Double darkSkyZenithVMag;
 
     @ElementCollection
+    @BatchSize(size = 64)
     @CollectionTable(name = "site_horizon_point", joinColumns = @JoinColumn(name = "site_id"))
     @OrderColumn(name = "seq")
     private List<HorizonPoint> horizon = new ArrayList<>();

@@ -32,23 +32,23 @@ class SiteController {
     @GetMapping
     PageView<SiteView> list(@RequestParam(required = false) String name,
                             @PageableDefault(size = 50, sort = "name", direction = Sort.Direction.ASC) Pageable pageable) {
-        return PageView.of(service.list(name, pageable), SiteView::of);
+        return service.list(name, pageable);
     }
 
     @GetMapping("/{id}")
     SiteView get(@PathVariable long id) {
-        return SiteView.of(service.get(id));
+        return service.get(id);
     }
 
     @PostMapping
     ResponseEntity<SiteView> create(@Valid @RequestBody SiteForm form) {
-        Site site = service.create(form);
-        return ResponseEntity.created(URI.create("/api/sites/" + site.getId())).body(SiteView.of(site));
+        SiteView site = service.create(form);
+        return ResponseEntity.created(URI.create("/api/sites/" + site.id())).body(site);
     }
 
     @PutMapping("/{id}")
     SiteView update(@PathVariable long id, @Valid @RequestBody SiteForm form) {
-        return SiteView.of(service.update(id, form));
+        return service.update(id, form);
     }
 
     @DeleteMapping("/{id}")

@@ -6,6 +6,7 @@ import org.skyrota.web.system.ConflictException;
 import org.skyrota.web.system.InvalidParametersException;
 import org.skyrota.web.system.FieldProblem;
 import org.skyrota.web.system.NotFoundException;
+import org.skyrota.web.system.PageView;
 import org.springframework.data.domain.Page;
 import org.springframework.data.domain.Pageable;
 import org.springframework.stereotype.Service;
@@ -25,28 +26,35 @@ public class SiteService {
     }
 
     @Transactional(readOnly = true)
-    public Page<Site> list(String nameContains, Pageable pageable) {
-        return nameContains == null || nameContains.isBlank()
+    public PageView<SiteView> list(String nameContains, Pageable pageable) {
+        Page<Site> page = nameContains == null || nameContains.isBlank()
                 ? sites.findAll(pageable)
                 : sites.findByNameContainingIgnoreCase(nameContains.trim(), pageable);
+        return PageView.of(page, SiteView::of);
     }
 
     @Transactional(readOnly = true)
-    public Site get(long id) {
+    public SiteView get(long id) {
+        return SiteView.of(find(id));
+    }
+
+    /** The stored site, for other features' services inside their own transaction. */
+    @Transactional(readOnly = true)
+    public Site find(long id) {
         return sites.findById(id).orElseThrow(() -> new NotFoundException(KIND, id));
     }
 
-    public Site create(SiteForm form) {
+    public SiteView create(SiteForm form) {
         if (sites.existsByNameIgnoreCase(form.name().trim())) {
             throw new ConflictException("A site named '" + form.name().trim() + "' exists already");
         }
         Site site = new Site(form.name().trim(), form.latitudeDeg(), form.longitudeDeg(), form.elevationM());
         apply(form, site);
-        return sites.save(site);
+        return SiteView.of(sites.save(site));
     }
 
-    public Site update(long id, SiteForm form) {
-        Site site = get(id);
+    public SiteView update(long id, SiteForm form) {
+        Site site = find(id);
         requireVersionGiven(form.version());
         site.requireVersion(KIND, form.version());
         if (!site.getName().equalsIgnoreCase(form.name().trim()) && sites.existsByNameIgnoreCase(form.name().trim())) {
@@ -56,11 +64,11 @@ public class SiteService {
         site.setLocation(form.latitudeDeg(), form.longitudeDeg(), form.elevationM());
         apply(form, site);
         // Flush now so that the new version is known to the caller's response.
-        return sites.saveAndFlush(site);
+        return SiteView.of(sites.saveAndFlush(site));
     }
 
     public void delete(long id, Long version) {
-        Site site = get(id);
+        Site site = find(id);
         if (version != null) {
             site.requireVersion(KIND, version);
         }
