@@ -27,6 +27,9 @@ class ComputeController {
     static final LocalDate EARLIEST_DATE = LocalDate.of(1800, 1, 1);
     static final LocalDate LATEST_DATE = LocalDate.of(2200, 12, 31);
     static final double DEFAULT_MIN_ALTITUDE_DEG = 30;
+    /** The sky engine's range for a minimum altitude (ObservingConstraints): below -1° refraction is unreliable. */
+    static final double LOWEST_MIN_ALTITUDE_DEG = -1;
+    static final double HIGHEST_MIN_ALTITUDE_DEG = 89;
     static final Darkness DEFAULT_DARKNESS = Darkness.ASTRONOMICAL;
 
     private final SkyComputations sky;
@@ -70,7 +73,8 @@ class ComputeController {
         LocalDate first = params.requiredDate("from", from, EARLIEST_DATE, LATEST_DATE);
         LocalDate last = params.requiredDate("to", to, EARLIEST_DATE, LATEST_DATE);
         Conditions conditions = new Conditions(
-                params.optionalNumber("minAltitude", minAltitude, -5, 90, DEFAULT_MIN_ALTITUDE_DEG),
+                params.optionalNumber("minAltitude", minAltitude, LOWEST_MIN_ALTITUDE_DEG, HIGHEST_MIN_ALTITUDE_DEG,
+                        DEFAULT_MIN_ALTITUDE_DEG),
                 params.optionalChoice("darkness", darkness, Darkness.class, DEFAULT_DARKNESS),
                 params.optionalNumber("minMoonSeparation", minMoonSeparation, 0, 180),
                 params.optionalNumber("maxMoonIllumination", maxMoonIllumination, 0, 1));

@@ -123,10 +123,10 @@ class ComputeControllerParametersTest {
         when(sky.windows(any(), any(), any(), any(), any())).thenReturn(List.of());
         // 2028 is a leap year: 2028-01-01 .. 2028-12-31 is 366 nights.
         mvc.perform(get("/api/visibility?ra=360&dec=90&lat=-90&lon=180&elevation=-500&from=2028-01-01&to=2028-12-31"
-                        + "&minAltitude=-5&minMoonSeparation=180&maxMoonIllumination=0&darkness=CIVIL"))
+                        + "&minAltitude=-1&minMoonSeparation=180&maxMoonIllumination=0&darkness=CIVIL"))
                 .andExpect(status().isOk());
         verify(sky).windows(new Observer(-90, 180, -500, null), new Target(0, 90),
-                new Conditions(-5, Darkness.CIVIL, 180.0, 0.0), LocalDate.of(2028, 1, 1), LocalDate.of(2028, 12, 31));
+                new Conditions(-1, Darkness.CIVIL, 180.0, 0.0), LocalDate.of(2028, 1, 1), LocalDate.of(2028, 12, 31));
     }
 
     @ParameterizedTest(name = "almanac with {0}={1}: {2}")
@@ -175,8 +175,8 @@ class ComputeControllerParametersTest {
             elevation           | 9500       | must be between -500 and 9000
             from                | 2027-1-10  | must be a date as YYYY-MM-DD
             to                  | tomorrow   | must be a date as YYYY-MM-DD
-            minAltitude         | -6         | must be between -5 and 90
-            minAltitude         | 91         | must be between -5 and 90
+            minAltitude         | -1.5       | must be between -1 and 89
+            minAltitude         | 89.5       | must be between -1 and 89
             minAltitude         | Infinity   | must be a decimal number
             darkness            | dark       | must be one of civil, nautical, astronomical
             minMoonSeparation   | 181        | must be between 0 and 180

@@ -16,12 +16,10 @@ import org.junit.jupiter.api.AfterEach;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.CsvSource;
-import org.skyrota.web.compute.SkyComputations;
 import org.springframework.beans.factory.annotation.Autowired;
 import org.springframework.boot.test.context.SpringBootTest;
 import org.springframework.boot.webmvc.test.autoconfigure.AutoConfigureMockMvc;
 import org.springframework.http.MediaType;
-import org.springframework.test.context.bean.override.mockito.MockitoBean;
 import org.springframework.test.web.servlet.MockMvc;
 
 /** The site resource end to end on the embedded database: create, read, list, edit, delete, and every refusal. */
@@ -39,9 +37,6 @@ class SiteApiTest {
 
     @Autowired
     SiteRepository sites;
-
-    @MockitoBean
-    SkyComputations sky;
 
     @AfterEach
     void empty() {
