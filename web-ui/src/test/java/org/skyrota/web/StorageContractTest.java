@@ -5,8 +5,24 @@ import static org.assertj.core.api.Assertions.assertThatThrownBy;
 
 import java.util.List;
 
+import static org.assertj.core.api.Assertions.tuple;
+
+import java.time.LocalDate;
+
 import org.junit.jupiter.api.AfterEach;
 import org.junit.jupiter.api.Test;
+import org.skyrota.web.equipment.Instrument;
+import org.skyrota.web.equipment.InstrumentRepository;
+import org.skyrota.web.equipment.Telescope;
+import org.skyrota.web.equipment.TelescopeRepository;
+import org.skyrota.web.program.Grant;
+import org.skyrota.web.program.Program;
+import org.skyrota.web.program.ProgramRepository;
+import org.skyrota.web.request.DarknessLimit;
+import org.skyrota.web.request.Exposure;
+import org.skyrota.web.request.ObservingRequest;
+import org.skyrota.web.request.ObservingRequestRepository;
+import org.skyrota.web.request.RequestState;
 import org.skyrota.web.site.HorizonPoint;
 import org.skyrota.web.site.Site;
 import org.skyrota.web.site.SiteRepository;
@@ -35,9 +51,64 @@ abstract class StorageContractTest {
     @Autowired
     TransactionTemplate transactions;
 
+    @Autowired
+    TelescopeRepository telescopes;
+
+    @Autowired
+    InstrumentRepository instruments;
+
+    @Autowired
+    ProgramRepository programs;
+
+    @Autowired
+    ObservingRequestRepository requests;
+
     @AfterEach
     void emptyTables() {
+        requests.deleteAll();
+        programs.deleteAll();
+        instruments.deleteAll();
+        telescopes.deleteAll();
         sites.deleteAll();
+    }
+
+    @Test
+    void equipmentProgramAndRequestRoundTripWithTheirLists() {
+        Site site = sites.save(new Site("Plateau Station", -23.5, -67.8, 2400));
+        Telescope telescope = new Telescope(site, "T40");
+        telescope.setOptics(400, 15, 4, 10);
+        telescope = telescopes.save(telescope);
+        Instrument ccd = new Instrument(telescope, "CCD-1");
+        ccd.setOverheads(8, 5);
+        ccd.setFilters(List.of("B", "V", "R"));
+        long instrumentId = instruments.save(ccd).getId();
+        Program program = new Program("VAR-27", "Variable stars", "coordinator");
+        program.setGrants(List.of(new Grant(telescope.getId(), 40, LocalDate.of(2027, 1, 1), LocalDate.of(2027, 6, 30))));
+        program = programs.save(program);
+        ObservingRequest request = new ObservingRequest(program, "student");
+        request.setTarget("NGC 1976", 83.82, -5.39);
+        request.setConditions(30, DarknessLimit.NAUTICAL, 25.0, null);
+        request.setSchedule(LocalDate.of(2027, 1, 10), null, 2, 1);
+        request.setExposures(List.of(new Exposure("V", 60, 10), new Exposure("R", 45, 5)));
+        long requestId = requests.save(request).getId();
+
+        transactions.executeWithoutResult(status -> {
+            assertThat(instruments.findById(instrumentId).orElseThrow().getFilters()).containsExactly("B", "V", "R");
+            ObservingRequest r = requests.findById(requestId).orElseThrow();
+            assertThat(r.getState()).isEqualTo(RequestState.DRAFT);
+            assertThat(r.getDarkness()).isEqualTo(DarknessLimit.NAUTICAL);
+            assertThat(r.getMinMoonSeparationDeg()).isEqualTo(25.0);
+            assertThat(r.getMaxMoonIllumination()).isNull();
+            assertThat(r.getLatestNight()).isNull();
+            assertThat(r.getExposures()).extracting(Exposure::getFilterName, Exposure::getSeconds, Exposure::getCount)
+                    .containsExactly(tuple("V", 60.0, 10), tuple("R", 45.0, 5));
+            assertThat(r.getProgram().getGrants()).singleElement()
+                    .satisfies(g -> assertThat(g.getLastNight()).isEqualTo(LocalDate.of(2027, 6, 30)));
+        });
+        assertThat(requests.countByState(RequestState.DRAFT)).isEqualTo(1);
+        // A telescope still in use (an instrument on it, a grant naming it) cannot vanish from under them.
+        long telescopeId = telescope.getId();
+        assertThatThrownBy(() -> telescopes.deleteById(telescopeId)).isInstanceOf(DataIntegrityViolationException.class);
     }
 
     @Test

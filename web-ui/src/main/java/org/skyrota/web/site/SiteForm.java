@@ -26,6 +26,6 @@ record SiteForm(
         @Size(max = 720) List<@Valid @NotNull Point> horizon) {
 
     record Point(
-            @NotNull @DecimalMin("0") @DecimalMax("360") Double azimuthDeg,
+            @NotNull @DecimalMin("0") @DecimalMax(value = "360", inclusive = false) Double azimuthDeg,
             @NotNull @DecimalMin("-5") @DecimalMax("90") Double altitudeDeg) {}
 }

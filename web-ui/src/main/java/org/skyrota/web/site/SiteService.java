@@ -77,6 +77,15 @@ public class SiteService {
     }
 
     private static void apply(SiteForm form, Site site) {
+        if (form.horizon() != null) {
+            java.util.Set<Double> seen = new java.util.HashSet<>();
+            for (int i = 0; i < form.horizon().size(); i++) {
+                if (!seen.add(form.horizon().get(i).azimuthDeg())) {
+                    throw new InvalidParametersException(List.of(new FieldProblem("horizon[" + i + "].azimuthDeg",
+                            "repeats an azimuth given earlier: " + form.horizon().get(i).azimuthDeg())));
+                }
+            }
+        }
         site.setTimeZone(form.timeZone() == null || form.timeZone().isBlank() ? null : form.timeZone().trim());
         site.setDarkSkyZenithVMag(form.darkSkyZenithVMag());
         site.setHorizon(form.horizon() == null ? List.of()
