@@ -5,6 +5,7 @@ import java.util.List;
 
 import jakarta.persistence.criteria.Predicate;
 
+import org.skyrota.web.account.CurrentUser;
 import org.skyrota.web.program.Program;
 import org.skyrota.web.program.ProgramRepository;
 import org.skyrota.web.system.ConflictException;
@@ -37,7 +38,10 @@ public class RequestService {
     record Filter(RequestState state, String owner, Long programId, String target) {}
 
     @Transactional(readOnly = true)
-    public PageView<RequestView> list(Filter filter, Pageable pageable) {
+    public PageView<RequestView> list(Filter asked, Pageable pageable) {
+        CurrentUser user = CurrentUser.get();
+        // A requester sees their own requests only, whatever they filter by.
+        Filter filter = user.reviewer() ? asked : new Filter(asked.state(), user.username(), asked.programId(), asked.target());
         Specification<ObservingRequest> spec = (root, query, cb) -> {
             List<Predicate> where = new ArrayList<>();
             if (filter.state() != null) {
@@ -63,7 +67,12 @@ public class RequestService {
     }
 
     public RequestView create(RequestForm form) {
-        ObservingRequest r = new ObservingRequest(referencedProgram(form.programId()), form.owner().trim());
+        CurrentUser user = CurrentUser.get();
+        String owner = form.owner() == null || form.owner().isBlank() ? user.username() : form.owner().trim();
+        if (!user.reviewer() && !owner.equals(user.username())) {
+            throw new InvalidParametersException(List.of(new FieldProblem("owner", "a requester can only create their own requests")));
+        }
+        ObservingRequest r = new ObservingRequest(referencedProgram(form.programId()), owner);
         apply(form, r);
         return RequestView.of(requests.save(r));
     }
@@ -74,7 +83,7 @@ public class RequestService {
         if (r.getState() != RequestState.DRAFT) {
             throw new ConflictException("Only a draft can be edited; this request is " + r.getState().name().toLowerCase());
         }
-        if (!r.getOwner().equals(form.owner().trim())) {
+        if (form.owner() != null && !form.owner().isBlank() && !r.getOwner().equals(form.owner().trim())) {
             throw new InvalidParametersException(List.of(new FieldProblem("owner", "cannot be changed by an edit")));
         }
         r.setProgram(referencedProgram(form.programId()));
@@ -108,8 +117,12 @@ public class RequestService {
         requests.flush();
     }
 
+    /** The request, if the signed-in user may see it; another requester's request does not exist for them. */
     private ObservingRequest find(long id) {
-        return requests.findById(id).orElseThrow(() -> new NotFoundException(KIND, id));
+        CurrentUser user = CurrentUser.get();
+        return requests.findById(id)
+                .filter(r -> user.reviewer() || r.getOwner().equals(user.username()))
+                .orElseThrow(() -> new NotFoundException(KIND, id));
     }
 
     private Program referencedProgram(long programId) {
