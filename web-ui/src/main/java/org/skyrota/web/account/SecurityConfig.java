@@ -41,7 +41,7 @@ class SecurityConfig {
         CsrfTokenRequestAttributeHandler plainToken = new CsrfTokenRequestAttributeHandler();
         http
                 .authorizeHttpRequests(auth -> auth
-                        .requestMatchers(HttpMethod.GET, "/api/almanac", "/api/visibility").permitAll()
+                        .requestMatchers(HttpMethod.GET, "/api/almanac", "/api/visibility", "/api/about").permitAll()
                         .requestMatchers("/actuator/health", "/actuator/health/**", "/actuator/info").permitAll()
                         .requestMatchers("/v3/api-docs", "/v3/api-docs/**", "/swagger-ui/**", "/swagger-ui.html").permitAll()
                         .requestMatchers("/api/accounts/me").authenticated()
