@@ -9,6 +9,7 @@ import jakarta.validation.constraints.NotNull;
 import jakarta.validation.constraints.Pattern;
 import jakarta.validation.constraints.Size;
 
+import org.skyrota.web.system.AuditLog;
 import org.skyrota.web.system.ConflictException;
 import org.springframework.data.domain.Sort;
 import org.springframework.http.ResponseEntity;
@@ -27,9 +28,11 @@ class AccountController {
 
     private final AccountRepository accounts;
     private final PasswordEncoder encoder;
+    private final AuditLog audit;
 
-    AccountController(AccountRepository accounts, PasswordEncoder encoder) {
+    AccountController(AccountRepository accounts, PasswordEncoder encoder, AuditLog audit) {
         this.accounts = accounts;
+        this.audit = audit;
         this.encoder = encoder;
     }
 
@@ -63,7 +66,8 @@ class AccountController {
         if (accounts.existsByUsername(form.username())) {
             throw new ConflictException("An account named '" + form.username() + "' exists already");
         }
-        Account a = accounts.save(new Account(form.username(), encoder.encode(form.password()), form.role()));
+        Account a = accounts.saveAndFlush(new Account(form.username(), encoder.encode(form.password()), form.role()));
+        audit.record("create", "account", a.getId(), null, AccountView.of(a));
         return ResponseEntity.created(URI.create("/api/accounts/" + a.getUsername())).body(AccountView.of(a));
     }
 }

@@ -46,6 +46,7 @@ class SecurityConfig {
                         .requestMatchers("/v3/api-docs", "/v3/api-docs/**", "/swagger-ui/**", "/swagger-ui.html").permitAll()
                         .requestMatchers("/api/accounts/me").authenticated()
                         .requestMatchers("/api/accounts", "/api/accounts/**").hasRole(REVIEWER_ROLES_ADMIN)
+                        .requestMatchers("/api/audit", "/api/audit/**").hasAnyRole(REVIEWER_ROLES_COORDINATOR, REVIEWER_ROLES_ADMIN)
                         .requestMatchers(HttpMethod.GET, REFERENCE_DATA).authenticated()
                         .requestMatchers(REFERENCE_DATA).hasAnyRole(REVIEWER_ROLES_COORDINATOR, REVIEWER_ROLES_ADMIN)
                         .requestMatchers(HttpMethod.POST, "/api/requests/*/accept", "/api/requests/*/reject")

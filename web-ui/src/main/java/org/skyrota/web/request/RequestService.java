@@ -8,6 +8,7 @@ import jakarta.persistence.criteria.Predicate;
 import org.skyrota.web.account.CurrentUser;
 import org.skyrota.web.program.Program;
 import org.skyrota.web.program.ProgramRepository;
+import org.skyrota.web.system.AuditLog;
 import org.skyrota.web.system.ConflictException;
 import org.skyrota.web.system.FieldProblem;
 import org.skyrota.web.system.InvalidParametersException;
@@ -28,8 +29,10 @@ public class RequestService {
 
     private final ObservingRequestRepository requests;
     private final ProgramRepository programs;
+    private final AuditLog audit;
 
-    RequestService(ObservingRequestRepository requests, ProgramRepository programs) {
+    RequestService(ObservingRequestRepository requests, ProgramRepository programs, AuditLog audit) {
+        this.audit = audit;
         this.requests = requests;
         this.programs = programs;
     }
@@ -74,12 +77,15 @@ public class RequestService {
         }
         ObservingRequest r = new ObservingRequest(referencedProgram(form.programId()), owner);
         apply(form, r);
-        return RequestView.of(requests.save(r));
+        RequestView created = RequestView.of(requests.saveAndFlush(r));
+        audit.record("create", KIND, created.id(), null, created);
+        return created;
     }
 
     public RequestView update(long id, RequestForm form) {
         ObservingRequest r = find(id);
         requireVersion(r, form.version());
+        RequestView before = RequestView.of(r);
         if (r.getState() != RequestState.DRAFT) {
             throw new ConflictException("Only a draft can be edited; this request is " + r.getState().name().toLowerCase());
         }
@@ -88,7 +94,9 @@ public class RequestService {
         }
         r.setProgram(referencedProgram(form.programId()));
         apply(form, r);
-        return RequestView.of(requests.saveAndFlush(r));
+        RequestView after = RequestView.of(requests.saveAndFlush(r));
+        audit.record("update", KIND, id, before, after);
+        return after;
     }
 
     /** Moves the request to {@code target}; {@code reason} is required for a rejection. */
@@ -101,8 +109,11 @@ public class RequestService {
         if (reason != null && reason.length() > 500) {
             throw new InvalidParametersException(List.of(new FieldProblem("reason", "may be at most 500 characters")));
         }
+        RequestView before = RequestView.of(r);
         r.moveTo(target, reason == null ? null : reason.trim());
-        return RequestView.of(requests.saveAndFlush(r));
+        RequestView after = RequestView.of(requests.saveAndFlush(r));
+        audit.record("state:" + target.name().toLowerCase(), KIND, id, before, after);
+        return after;
     }
 
     public void delete(long id, Long version) {
@@ -113,6 +124,7 @@ public class RequestService {
         if (r.getState() != RequestState.DRAFT && r.getState() != RequestState.WITHDRAWN) {
             throw new ConflictException("Only a draft or a withdrawn request can be deleted; withdraw it first");
         }
+        audit.record("delete", KIND, id, RequestView.of(r), null);
         requests.delete(r);
         requests.flush();
     }
