@@ -56,6 +56,8 @@ class SecurityConfig {
                 .httpBasic(basic -> basic.realmName("Skyrota").authenticationEntryPoint(SecurityConfig::unauthorized))
                 .formLogin(form -> form.permitAll())
                 .logout(logout -> logout.permitAll())
+                // An API call refused for want of a login must not open a session to remember it.
+                .requestCache(cache -> cache.disable())
                 .csrf(csrf -> csrf
                         .csrfTokenRepository(CookieCsrfTokenRepository.withHttpOnlyFalse())
                         .csrfTokenRequestHandler(plainToken)

@@ -82,11 +82,13 @@ class SecurityTest {
 
     @Test
     void storedDataNeedsAnAccountAndTheRefusalIsAProblemDocument() throws Exception {
-        mvc.perform(get("/api/sites"))
+        var refused = mvc.perform(get("/api/sites"))
                 .andExpect(status().isUnauthorized())
                 .andExpect(header().string("WWW-Authenticate", containsString("Basic")))
                 .andExpect(content().contentTypeCompatibleWith(MediaType.APPLICATION_PROBLEM_JSON))
-                .andExpect(jsonPath("$.status").value(401));
+                .andExpect(jsonPath("$.status").value(401))
+                .andReturn();
+        assertThat(refused.getRequest().getSession(false)).as("no session opened for a refused API call").isNull();
         mvc.perform(get("/api/sites").with(httpBasic("ada", "wrong"))).andExpect(status().isUnauthorized());
         mvc.perform(get("/api/sites").with(as("ada"))).andExpect(status().isOk());
     }
