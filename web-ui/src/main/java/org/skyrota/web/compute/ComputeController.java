@@ -1,0 +1,105 @@
+package org.skyrota.web.compute;
+
+import java.time.LocalDate;
+import java.time.temporal.ChronoUnit;
+import java.util.List;
+
+import org.skyrota.web.compute.SkyComputations.Conditions;
+import org.skyrota.web.compute.SkyComputations.Darkness;
+import org.skyrota.web.compute.SkyComputations.Observer;
+import org.skyrota.web.compute.SkyComputations.Target;
+import org.skyrota.web.system.QueryParameters;
+import org.springframework.http.MediaType;
+import org.springframework.web.bind.annotation.GetMapping;
+import org.springframework.web.bind.annotation.RequestParam;
+import org.springframework.web.bind.annotation.RestController;
+
+/**
+ * The compute endpoints: almanac and visibility windows for a site given by its coordinates.
+ * They read no stored data, so they need no login.
+ */
+@RestController
+class ComputeController {
+
+    /** Nights a single visibility request may span: one year, leap years included. */
+    static final int MAX_NIGHTS = 366;
+    /** Dates the server accepts; outside them the UT1 extrapolation is little better than a guess. */
+    static final LocalDate EARLIEST_DATE = LocalDate.of(1800, 1, 1);
+    static final LocalDate LATEST_DATE = LocalDate.of(2200, 12, 31);
+    static final double DEFAULT_MIN_ALTITUDE_DEG = 30;
+    /** The sky engine's range for a minimum altitude (ObservingConstraints): below -1° refraction is unreliable. */
+    static final double LOWEST_MIN_ALTITUDE_DEG = -1;
+    static final double HIGHEST_MIN_ALTITUDE_DEG = 89;
+    static final Darkness DEFAULT_DARKNESS = Darkness.ASTRONOMICAL;
+
+    private final SkyComputations sky;
+
+    ComputeController(SkyComputations sky) {
+        this.sky = sky;
+    }
+
+    @GetMapping(path = "/api/almanac", produces = MediaType.APPLICATION_JSON_VALUE)
+    AlmanacResponse almanac(
+            @RequestParam(required = false) String lat,
+            @RequestParam(required = false) String lon,
+            @RequestParam(required = false) String elevation,
+            @RequestParam(required = false) String date,
+            @RequestParam(required = false) String tz) {
+        QueryParameters params = new QueryParameters();
+        Observer observer = observer(params, lat, lon, elevation, tz);
+        LocalDate night = params.requiredDate("date", date, EARLIEST_DATE, LATEST_DATE);
+        params.throwIfInvalid();
+        return AlmanacResponse.of(sky.almanac(observer, night));
+    }
+
+    @GetMapping(path = "/api/visibility", produces = MediaType.APPLICATION_JSON_VALUE)
+    VisibilityResponse visibility(
+            @RequestParam(required = false) String ra,
+            @RequestParam(required = false) String dec,
+            @RequestParam(required = false) String lat,
+            @RequestParam(required = false) String lon,
+            @RequestParam(required = false) String elevation,
+            @RequestParam(required = false) String from,
+            @RequestParam(required = false) String to,
+            @RequestParam(required = false) String minAltitude,
+            @RequestParam(required = false) String darkness,
+            @RequestParam(required = false) String minMoonSeparation,
+            @RequestParam(required = false) String maxMoonIllumination,
+            @RequestParam(required = false) String tz) {
+        QueryParameters params = new QueryParameters();
+        double raDeg = params.requiredNumber("ra", ra, 0, 360);
+        double decDeg = params.requiredNumber("dec", dec, -90, 90);
+        Observer observer = observer(params, lat, lon, elevation, tz);
+        LocalDate first = params.requiredDate("from", from, EARLIEST_DATE, LATEST_DATE);
+        LocalDate last = params.requiredDate("to", to, EARLIEST_DATE, LATEST_DATE);
+        Conditions conditions = new Conditions(
+                params.optionalNumber("minAltitude", minAltitude, LOWEST_MIN_ALTITUDE_DEG, HIGHEST_MIN_ALTITUDE_DEG,
+                        DEFAULT_MIN_ALTITUDE_DEG),
+                params.optionalChoice("darkness", darkness, Darkness.class, DEFAULT_DARKNESS),
+                params.optionalNumber("minMoonSeparation", minMoonSeparation, 0, 180),
+                params.optionalNumber("maxMoonIllumination", maxMoonIllumination, 0, 1));
+        if (first != null && last != null) {
+            if (last.isBefore(first)) {
+                params.reject("to", "must not be before from (" + first + "), was " + last);
+            } else if (ChronoUnit.DAYS.between(first, last) + 1 > MAX_NIGHTS) {
+                params.reject("to", "may be at most " + MAX_NIGHTS + " nights after from (" + first + "), was " + last);
+            }
+        }
+        params.throwIfInvalid();
+        return VisibilityResponse.of(sky.windows(observer, new Target(raDeg % 360, decDeg), conditions, first, last));
+    }
+
+    private static Observer observer(QueryParameters params, String lat, String lon, String elevation, String tz) {
+        return new Observer(
+                params.requiredNumber("lat", lat, -90, 90),
+                params.requiredNumber("lon", lon, -180, 180),
+                params.optionalNumber("elevation", elevation, -500, 9000, 0),
+                params.optionalZone("tz", tz));
+    }
+
+    record VisibilityResponse(List<WindowResponse> windows) {
+        static VisibilityResponse of(List<SkyComputations.Window> windows) {
+            return new VisibilityResponse(windows.stream().map(WindowResponse::of).toList());
+        }
+    }
+}

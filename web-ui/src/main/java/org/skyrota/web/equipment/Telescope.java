@@ -1,0 +1,95 @@
+package org.skyrota.web.equipment;
+
+import jakarta.persistence.Column;
+import jakarta.persistence.Entity;
+import jakarta.persistence.FetchType;
+import jakarta.persistence.JoinColumn;
+import jakarta.persistence.ManyToOne;
+import jakarta.persistence.Table;
+
+import org.skyrota.web.site.Site;
+import org.skyrota.web.system.StoredEntity;
+
+/** A telescope at a site, with the limits and overheads that shape its visits. */
+@Entity
+@Table(name = "telescope")
+public class Telescope extends StoredEntity {
+
+    @ManyToOne(fetch = FetchType.LAZY, optional = false)
+    @JoinColumn(name = "site_id", nullable = false)
+    private Site site;
+
+    @Column(nullable = false, length = 100)
+    private String name;
+
+    @Column(name = "aperture_mm", nullable = false)
+    private double apertureMm;
+
+    /** The mount's or the dome's lowest usable altitude. */
+    @Column(name = "min_altitude_deg", nullable = false)
+    private double minAltitudeDeg;
+
+    @Column(name = "slew_rate_deg_per_s", nullable = false)
+    private double slewRateDegPerS;
+
+    @Column(name = "settle_seconds", nullable = false)
+    private double settleSeconds;
+
+    @Column(nullable = false)
+    private boolean active;
+
+    protected Telescope() {}
+
+    public Telescope(Site site, String name) {
+        this.site = site;
+        this.name = name;
+        this.active = true;
+    }
+
+    public Site getSite() {
+        return site;
+    }
+
+    public void setSite(Site site) {
+        this.site = site;
+    }
+
+    public String getName() {
+        return name;
+    }
+
+    public void setName(String name) {
+        this.name = name;
+    }
+
+    public double getApertureMm() {
+        return apertureMm;
+    }
+
+    public double getMinAltitudeDeg() {
+        return minAltitudeDeg;
+    }
+
+    public double getSlewRateDegPerS() {
+        return slewRateDegPerS;
+    }
+
+    public double getSettleSeconds() {
+        return settleSeconds;
+    }
+
+    public void setOptics(double apertureMm, double minAltitudeDeg, double slewRateDegPerS, double settleSeconds) {
+        this.apertureMm = apertureMm;
+        this.minAltitudeDeg = minAltitudeDeg;
+        this.slewRateDegPerS = slewRateDegPerS;
+        this.settleSeconds = settleSeconds;
+    }
+
+    public boolean isActive() {
+        return active;
+    }
+
+    public void setActive(boolean active) {
+        this.active = active;
+    }
+}

@@ -1,0 +1,18 @@
+package org.skyrota.web.equipment;
+
+import jakarta.validation.constraints.DecimalMax;
+import jakarta.validation.constraints.DecimalMin;
+import jakarta.validation.constraints.NotBlank;
+import jakarta.validation.constraints.NotNull;
+import jakarta.validation.constraints.Size;
+
+/** A telescope as a client sends it; {@code version} is required when editing. */
+record TelescopeForm(
+        Long version,
+        @NotNull Long siteId,
+        @NotBlank @Size(max = 100) String name,
+        @NotNull @DecimalMin(value = "0", inclusive = false) @DecimalMax("20000") Double apertureMm,
+        @NotNull @DecimalMin("-5") @DecimalMax("90") Double minAltitudeDeg,
+        @NotNull @DecimalMin(value = "0", inclusive = false) @DecimalMax("90") Double slewRateDegPerS,
+        @NotNull @DecimalMin("0") @DecimalMax("3600") Double settleSeconds,
+        Boolean active) {}

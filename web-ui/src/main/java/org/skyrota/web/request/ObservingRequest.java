@@ -1,0 +1,197 @@
+package org.skyrota.web.request;
+
+import java.time.LocalDate;
+import java.util.ArrayList;
+import java.util.List;
+
+import jakarta.persistence.CollectionTable;
+import jakarta.persistence.Column;
+import jakarta.persistence.ElementCollection;
+import jakarta.persistence.Entity;
+import jakarta.persistence.EnumType;
+import jakarta.persistence.Enumerated;
+import jakarta.persistence.FetchType;
+import jakarta.persistence.JoinColumn;
+import jakarta.persistence.ManyToOne;
+import jakarta.persistence.OrderColumn;
+import jakarta.persistence.Table;
+
+import org.hibernate.annotations.BatchSize;
+import org.skyrota.web.program.Program;
+import org.skyrota.web.system.ConflictException;
+import org.skyrota.web.system.StoredEntity;
+
+/** A request to observe one fixed target: what to take, under which sky, between which nights. */
+@Entity
+@Table(name = "observing_request")
+public class ObservingRequest extends StoredEntity {
+
+    @ManyToOne(fetch = FetchType.LAZY, optional = false)
+    @JoinColumn(name = "program_id", nullable = false)
+    private Program program;
+
+    /** User name of the person who asked. */
+    @Column(nullable = false, length = 100)
+    private String owner;
+
+    @Column(name = "target_name", nullable = false, length = 100)
+    private String targetName;
+
+    /** ICRS (J2000) right ascension, degrees. */
+    @Column(name = "ra_deg", nullable = false)
+    private double raDeg;
+
+    @Column(name = "dec_deg", nullable = false)
+    private double decDeg;
+
+    @Column(name = "min_altitude_deg", nullable = false)
+    private double minAltitudeDeg;
+
+    @Enumerated(EnumType.STRING)
+    @Column(nullable = false, length = 16)
+    private DarknessLimit darkness;
+
+    @Column(name = "min_moon_separation_deg")
+    private Double minMoonSeparationDeg;
+
+    @Column(name = "max_moon_illumination")
+    private Double maxMoonIllumination;
+
+    @Column(name = "earliest_night")
+    private LocalDate earliestNight;
+
+    @Column(name = "latest_night")
+    private LocalDate latestNight;
+
+    /** How many times the exposure plan is to be carried out, each on its own visit. */
+    @Column(nullable = false)
+    private int repeats;
+
+    /** 1 (highest) to 5 (lowest). */
+    @Column(nullable = false)
+    private int priority;
+
+    @Enumerated(EnumType.STRING)
+    @Column(nullable = false, length = 16)
+    private RequestState state;
+
+    @Column(name = "rejection_reason", length = 500)
+    private String rejectionReason;
+
+    @ElementCollection
+    @BatchSize(size = 64)
+    @CollectionTable(name = "request_exposure", joinColumns = @JoinColumn(name = "request_id"))
+    @OrderColumn(name = "seq")
+    private List<Exposure> exposures = new ArrayList<>();
+
+    protected ObservingRequest() {}
+
+    public ObservingRequest(Program program, String owner) {
+        this.program = program;
+        this.owner = owner;
+        this.state = RequestState.DRAFT;
+    }
+
+    /** Moves to {@code target}, or refuses naming both states. */
+    public void moveTo(RequestState target, String reason) {
+        if (!state.canBecome(target)) {
+            throw new ConflictException("A request in state " + state.name().toLowerCase() + " cannot become "
+                    + target.name().toLowerCase() + "; allowed: " + state.next().stream().map(s -> s.name().toLowerCase()).toList());
+        }
+        state = target;
+        rejectionReason = target == RequestState.REJECTED ? reason : null;
+    }
+
+    public void setTarget(String targetName, double raDeg, double decDeg) {
+        this.targetName = targetName;
+        this.raDeg = raDeg;
+        this.decDeg = decDeg;
+    }
+
+    public void setConditions(double minAltitudeDeg, DarknessLimit darkness, Double minMoonSeparationDeg, Double maxMoonIllumination) {
+        this.minAltitudeDeg = minAltitudeDeg;
+        this.darkness = darkness;
+        this.minMoonSeparationDeg = minMoonSeparationDeg;
+        this.maxMoonIllumination = maxMoonIllumination;
+    }
+
+    public void setSchedule(LocalDate earliestNight, LocalDate latestNight, int repeats, int priority) {
+        this.earliestNight = earliestNight;
+        this.latestNight = latestNight;
+        this.repeats = repeats;
+        this.priority = priority;
+    }
+
+    public void setExposures(List<Exposure> plan) {
+        exposures.clear();
+        exposures.addAll(plan);
+    }
+
+    public void setProgram(Program program) {
+        this.program = program;
+    }
+
+    public Program getProgram() {
+        return program;
+    }
+
+    public String getOwner() {
+        return owner;
+    }
+
+    public String getTargetName() {
+        return targetName;
+    }
+
+    public double getRaDeg() {
+        return raDeg;
+    }
+
+    public double getDecDeg() {
+        return decDeg;
+    }
+
+    public double getMinAltitudeDeg() {
+        return minAltitudeDeg;
+    }
+
+    public DarknessLimit getDarkness() {
+        return darkness;
+    }
+
+    public Double getMinMoonSeparationDeg() {
+        return minMoonSeparationDeg;
+    }
+
+    public Double getMaxMoonIllumination() {
+        return maxMoonIllumination;
+    }
+
+    public LocalDate getEarliestNight() {
+        return earliestNight;
+    }
+
+    public LocalDate getLatestNight() {
+        return latestNight;
+    }
+
+    public int getRepeats() {
+        return repeats;
+    }
+
+    public int getPriority() {
+        return priority;
+    }
+
+    public RequestState getState() {
+        return state;
+    }
+
+    public String getRejectionReason() {
+        return rejectionReason;
+    }
+
+    public List<Exposure> getExposures() {
+        return List.copyOf(exposures);
+    }
+}

@@ -1,0 +1,9 @@
+package org.skyrota.web.request;
+
+import org.springframework.data.jpa.repository.JpaRepository;
+import org.springframework.data.jpa.repository.JpaSpecificationExecutor;
+
+public interface ObservingRequestRepository extends JpaRepository<ObservingRequest, Long>, JpaSpecificationExecutor<ObservingRequest> {
+
+    long countByState(RequestState state);
+}

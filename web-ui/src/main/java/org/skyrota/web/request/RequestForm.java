@@ -1,0 +1,43 @@
+package org.skyrota.web.request;
+
+import java.time.LocalDate;
+import java.util.List;
+
+import jakarta.validation.Valid;
+import jakarta.validation.constraints.DecimalMax;
+import jakarta.validation.constraints.DecimalMin;
+import jakarta.validation.constraints.Max;
+import jakarta.validation.constraints.Min;
+import jakarta.validation.constraints.NotBlank;
+import jakarta.validation.constraints.NotEmpty;
+import jakarta.validation.constraints.NotNull;
+import jakarta.validation.constraints.Size;
+
+/**
+ * An observing request as a client sends it. {@code ra} and {@code dec} are decimal degrees
+ * or sexagesimal text (see {@link Sexagesimal}); absent conditions take the defaults of the
+ * compute endpoints (minimum altitude 30°, astronomical darkness, no Moon limits). {@code owner}
+ * defaults to the signed-in user; only a coordinator or an admin may name someone else.
+ */
+record RequestForm(
+        Long version,
+        @NotNull Long programId,
+        @Size(max = 100) String owner,
+        @NotBlank @Size(max = 100) String targetName,
+        @NotBlank String ra,
+        @NotBlank String dec,
+        @NotEmpty @Size(max = 50) List<@Valid @NotNull ExposureForm> exposures,
+        @DecimalMin("-1") @DecimalMax("89") Double minAltitudeDeg,
+        DarknessLimit darkness,
+        @DecimalMin("0") @DecimalMax("180") Double minMoonSeparationDeg,
+        @DecimalMin("0") @DecimalMax("1") Double maxMoonIllumination,
+        LocalDate earliestNight,
+        LocalDate latestNight,
+        @Min(1) @Max(100) Integer repeats,
+        @NotNull @Min(1) @Max(5) Integer priority) {
+
+    record ExposureForm(
+            @NotBlank @Size(max = 40) String filter,
+            @NotNull @DecimalMin(value = "0", inclusive = false) @DecimalMax("36000") Double seconds,
+            @NotNull @Min(1) @Max(1000) Integer count) {}
+}

@@ -1,0 +1,179 @@
+package org.skyrota.web.request;
+
+import java.util.ArrayList;
+import java.util.List;
+
+import jakarta.persistence.criteria.Predicate;
+
+import org.skyrota.web.account.CurrentUser;
+import org.skyrota.web.program.Program;
+import org.skyrota.web.program.ProgramRepository;
+import org.skyrota.web.system.AuditLog;
+import org.skyrota.web.system.ConflictException;
+import org.skyrota.web.system.FieldProblem;
+import org.skyrota.web.system.InvalidParametersException;
+import org.skyrota.web.system.NotFoundException;
+import org.skyrota.web.system.PageView;
+import org.springframework.data.domain.Pageable;
+import org.springframework.data.jpa.domain.Specification;
+import org.springframework.stereotype.Service;
+import org.springframework.transaction.annotation.Transactional;
+
+/** Reads, edits and moves observing requests through their states, one transaction per call. */
+@Service
+@Transactional
+public class RequestService {
+
+    static final String KIND = "request";
+    static final double DEFAULT_MIN_ALTITUDE_DEG = 30;
+
+    private final ObservingRequestRepository requests;
+    private final ProgramRepository programs;
+    private final AuditLog audit;
+
+    RequestService(ObservingRequestRepository requests, ProgramRepository programs, AuditLog audit) {
+        this.audit = audit;
+        this.requests = requests;
+        this.programs = programs;
+    }
+
+    /** What a listing may be narrowed to; null members do not narrow. */
+    record Filter(RequestState state, String owner, Long programId, String target) {}
+
+    @Transactional(readOnly = true)
+    public PageView<RequestView> list(Filter asked, Pageable pageable) {
+        CurrentUser user = CurrentUser.get();
+        // A requester sees their own requests only, whatever they filter by.
+        Filter filter = user.reviewer() ? asked : new Filter(asked.state(), user.username(), asked.programId(), asked.target());
+        Specification<ObservingRequest> spec = (root, query, cb) -> {
+            List<Predicate> where = new ArrayList<>();
+            if (filter.state() != null) {
+                where.add(cb.equal(root.get("state"), filter.state()));
+            }
+            if (filter.owner() != null && !filter.owner().isBlank()) {
+                where.add(cb.equal(root.get("owner"), filter.owner().trim()));
+            }
+            if (filter.programId() != null) {
+                where.add(cb.equal(root.get("program").get("id"), filter.programId()));
+            }
+            if (filter.target() != null && !filter.target().isBlank()) {
+                where.add(cb.like(cb.lower(root.get("targetName")), "%" + filter.target().trim().toLowerCase() + "%"));
+            }
+            return cb.and(where.toArray(Predicate[]::new));
+        };
+        return PageView.of(requests.findAll(spec, pageable), RequestView::of);
+    }
+
+    @Transactional(readOnly = true)
+    public RequestView get(long id) {
+        return RequestView.of(find(id));
+    }
+
+    public RequestView create(RequestForm form) {
+        CurrentUser user = CurrentUser.get();
+        String owner = form.owner() == null || form.owner().isBlank() ? user.username() : form.owner().trim();
+        if (!user.reviewer() && !owner.equals(user.username())) {
+            throw new InvalidParametersException(List.of(new FieldProblem("owner", "a requester can only create their own requests")));
+        }
+        ObservingRequest r = new ObservingRequest(referencedProgram(form.programId()), owner);
+        apply(form, r);
+        RequestView created = RequestView.of(requests.saveAndFlush(r));
+        audit.record("create", KIND, created.id(), null, created);
+        return created;
+    }
+
+    public RequestView update(long id, RequestForm form) {
+        ObservingRequest r = find(id);
+        requireVersion(r, form.version());
+        RequestView before = RequestView.of(r);
+        if (r.getState() != RequestState.DRAFT) {
+            throw new ConflictException("Only a draft can be edited; this request is " + r.getState().name().toLowerCase());
+        }
+        if (form.owner() != null && !form.owner().isBlank() && !r.getOwner().equals(form.owner().trim())) {
+            throw new InvalidParametersException(List.of(new FieldProblem("owner", "cannot be changed by an edit")));
+        }
+        r.setProgram(referencedProgram(form.programId()));
+        apply(form, r);
+        RequestView after = RequestView.of(requests.saveAndFlush(r));
+        audit.record("update", KIND, id, before, after);
+        return after;
+    }
+
+    /** Moves the request to {@code target}; {@code reason} is required for a rejection. */
+    public RequestView move(long id, Long version, RequestState target, String reason) {
+        ObservingRequest r = find(id);
+        requireVersion(r, version);
+        if (target == RequestState.REJECTED && (reason == null || reason.isBlank())) {
+            throw new InvalidParametersException(List.of(new FieldProblem("reason", "is required when rejecting a request")));
+        }
+        if (reason != null && reason.length() > 500) {
+            throw new InvalidParametersException(List.of(new FieldProblem("reason", "may be at most 500 characters")));
+        }
+        RequestView before = RequestView.of(r);
+        r.moveTo(target, reason == null ? null : reason.trim());
+        RequestView after = RequestView.of(requests.saveAndFlush(r));
+        audit.record("state:" + target.name().toLowerCase(), KIND, id, before, after);
+        return after;
+    }
+
+    public void delete(long id, Long version) {
+        ObservingRequest r = find(id);
+        if (version != null) {
+            r.requireVersion(KIND, version);
+        }
+        if (r.getState() != RequestState.DRAFT && r.getState() != RequestState.WITHDRAWN) {
+            throw new ConflictException("Only a draft or a withdrawn request can be deleted; withdraw it first");
+        }
+        audit.record("delete", KIND, id, RequestView.of(r), null);
+        requests.delete(r);
+        requests.flush();
+    }
+
+    /** The request, if the signed-in user may see it; another requester's request does not exist for them. */
+    private ObservingRequest find(long id) {
+        CurrentUser user = CurrentUser.get();
+        return requests.findById(id)
+                .filter(r -> user.reviewer() || r.getOwner().equals(user.username()))
+                .orElseThrow(() -> new NotFoundException(KIND, id));
+    }
+
+    private Program referencedProgram(long programId) {
+        return programs.findById(programId).orElseThrow(() ->
+                new InvalidParametersException(List.of(new FieldProblem("programId", "names no stored program: " + programId))));
+    }
+
+    private static void requireVersion(ObservingRequest r, Long version) {
+        if (version == null) {
+            throw new InvalidParametersException(List.of(new FieldProblem("version", "is required when editing: send the version you read")));
+        }
+        r.requireVersion(KIND, version);
+    }
+
+    private static void apply(RequestForm form, ObservingRequest r) {
+        List<FieldProblem> problems = new ArrayList<>();
+        double raDeg = Double.NaN;
+        double decDeg = Double.NaN;
+        try {
+            raDeg = Sexagesimal.rightAscensionDeg(form.ra());
+        } catch (IllegalArgumentException e) {
+            problems.add(new FieldProblem("ra", e.getMessage()));
+        }
+        try {
+            decDeg = Sexagesimal.declinationDeg(form.dec());
+        } catch (IllegalArgumentException e) {
+            problems.add(new FieldProblem("dec", e.getMessage()));
+        }
+        if (form.earliestNight() != null && form.latestNight() != null && form.latestNight().isBefore(form.earliestNight())) {
+            problems.add(new FieldProblem("latestNight", "must not be before earliestNight (" + form.earliestNight() + ")"));
+        }
+        if (!problems.isEmpty()) {
+            throw new InvalidParametersException(problems);
+        }
+        r.setTarget(form.targetName().trim(), raDeg, decDeg);
+        r.setConditions(form.minAltitudeDeg() == null ? DEFAULT_MIN_ALTITUDE_DEG : form.minAltitudeDeg(),
+                form.darkness() == null ? DarknessLimit.ASTRONOMICAL : form.darkness(),
+                form.minMoonSeparationDeg(), form.maxMoonIllumination());
+        r.setSchedule(form.earliestNight(), form.latestNight(), form.repeats() == null ? 1 : form.repeats(), form.priority());
+        r.setExposures(form.exposures().stream().map(e -> new Exposure(e.filter().trim(), e.seconds(), e.count())).toList());
+    }
+}

@@ -1,0 +1,38 @@
+package org.skyrota.web.request;
+
+import java.time.Instant;
+import java.time.LocalDate;
+import java.util.List;
+
+/** A stored observing request as the API shows it; coordinates in decimal degrees. */
+record RequestView(
+        long id,
+        long version,
+        long programId,
+        String owner,
+        String targetName,
+        double raDeg,
+        double decDeg,
+        List<RequestForm.ExposureForm> exposures,
+        double minAltitudeDeg,
+        DarknessLimit darkness,
+        Double minMoonSeparationDeg,
+        Double maxMoonIllumination,
+        LocalDate earliestNight,
+        LocalDate latestNight,
+        int repeats,
+        int priority,
+        RequestState state,
+        String rejectionReason,
+        Instant createdAt,
+        Instant updatedAt) {
+
+    static RequestView of(ObservingRequest r) {
+        return new RequestView(r.getId(), r.getVersion(), r.getProgram().getId(), r.getOwner(), r.getTargetName(),
+                r.getRaDeg(), r.getDecDeg(),
+                r.getExposures().stream().map(e -> new RequestForm.ExposureForm(e.getFilterName(), e.getSeconds(), e.getCount())).toList(),
+                r.getMinAltitudeDeg(), r.getDarkness(), r.getMinMoonSeparationDeg(), r.getMaxMoonIllumination(),
+                r.getEarliestNight(), r.getLatestNight(), r.getRepeats(), r.getPriority(), r.getState(), r.getRejectionReason(),
+                r.getCreatedAt(), r.getUpdatedAt());
+    }
+}

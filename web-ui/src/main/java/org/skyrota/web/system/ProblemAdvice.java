@@ -1,0 +1,236 @@
+package org.skyrota.web.system;
+
+import java.net.URI;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Map;
+
+import jakarta.validation.ConstraintViolation;
+import jakarta.validation.ConstraintViolationException;
+
+import org.slf4j.Logger;
+import tools.jackson.core.JacksonException;
+import org.slf4j.LoggerFactory;
+import org.springframework.beans.TypeMismatchException;
+import org.springframework.context.MessageSourceResolvable;
+import org.springframework.context.i18n.LocaleContextHolder;
+import org.springframework.dao.DataIntegrityViolationException;
+import org.springframework.data.core.PropertyReferenceException;
+import org.springframework.http.HttpHeaders;
+import org.springframework.http.HttpStatus;
+import org.springframework.http.HttpStatusCode;
+import org.springframework.http.ProblemDetail;
+import org.springframework.http.ResponseEntity;
+import org.springframework.http.converter.HttpMessageNotReadableException;
+import org.springframework.orm.ObjectOptimisticLockingFailureException;
+import org.springframework.validation.FieldError;
+import org.springframework.web.ErrorResponse;
+import org.springframework.web.bind.MethodArgumentNotValidException;
+import org.springframework.web.bind.MissingServletRequestParameterException;
+import org.springframework.web.bind.annotation.ExceptionHandler;
+import org.springframework.web.bind.annotation.RestControllerAdvice;
+import org.springframework.web.context.request.NativeWebRequest;
+import org.springframework.web.context.request.ServletWebRequest;
+import org.springframework.web.context.request.WebRequest;
+import org.springframework.web.method.annotation.HandlerMethodValidationException;
+import org.springframework.web.servlet.mvc.method.annotation.ResponseEntityExceptionHandler;
+
+/**
+ * Turns every exception a handler throws into an RFC 9457 problem document with the right
+ * status. Spring MVC's own exceptions (404 for an unknown path, 405, 406, 415, ...) are mapped by
+ * the base class; the overrides add the {@code parameter} and {@code errors} members that name
+ * what was wrong; anything unexpected becomes a 500 whose body says nothing of the internals.
+ */
+@RestControllerAdvice
+public class ProblemAdvice extends ResponseEntityExceptionHandler {
+
+    private static final URI ABOUT_BLANK = URI.create("about:blank");
+    private static final Logger log = LoggerFactory.getLogger(ProblemAdvice.class);
+
+    @ExceptionHandler(InvalidParametersException.class)
+    ResponseEntity<Object> invalidParameters(InvalidParametersException e, WebRequest request) {
+        return badRequest(e, e.problems(), request);
+    }
+
+    @ExceptionHandler(ConstraintViolationException.class)
+    ResponseEntity<Object> constraintViolation(ConstraintViolationException e, WebRequest request) {
+        List<FieldProblem> problems = new ArrayList<>();
+        for (ConstraintViolation<?> v : e.getConstraintViolations()) {
+            problems.add(new FieldProblem(lastNode(v.getPropertyPath().toString()), v.getMessage()));
+        }
+        return badRequest(e, problems, request);
+    }
+
+    @ExceptionHandler(NotFoundException.class)
+    ResponseEntity<Object> notFound(NotFoundException e, WebRequest request) {
+        return problem(e, HttpStatus.NOT_FOUND, ProblemTypes.NOT_FOUND, "Not found", e.getMessage(), request);
+    }
+
+    @ExceptionHandler(StaleVersionException.class)
+    ResponseEntity<Object> staleVersion(StaleVersionException e, WebRequest request) {
+        ProblemDetail body = ProblemDetail.forStatusAndDetail(HttpStatus.CONFLICT, e.getMessage());
+        body.setType(ProblemTypes.STALE_VERSION);
+        body.setTitle("Edited against an old version");
+        body.setProperty("currentVersion", e.currentVersion());
+        return handleExceptionInternal(e, body, new HttpHeaders(), HttpStatus.CONFLICT, request);
+    }
+
+    @ExceptionHandler(ObjectOptimisticLockingFailureException.class)
+    ResponseEntity<Object> concurrentEdit(ObjectOptimisticLockingFailureException e, WebRequest request) {
+        // Two edits raced past the version check; the loser learns the version by reading again.
+        return problem(e, HttpStatus.CONFLICT, ProblemTypes.STALE_VERSION, "Edited against an old version",
+                "Someone else changed this at the same moment; read it again and repeat the edit.", request);
+    }
+
+    @ExceptionHandler(ConflictException.class)
+    ResponseEntity<Object> conflict(ConflictException e, WebRequest request) {
+        return problem(e, HttpStatus.CONFLICT, ProblemTypes.CONFLICT, "Conflict", e.getMessage(), request);
+    }
+
+    @ExceptionHandler(DataIntegrityViolationException.class)
+    ResponseEntity<Object> integrity(DataIntegrityViolationException e, WebRequest request) {
+        log.info("Refused a change that breaks a stored rule: {}", e.getMostSpecificCause().getMessage());
+        return problem(e, HttpStatus.CONFLICT, ProblemTypes.CONFLICT, "Conflict",
+                "The change clashes with stored data (a duplicate name, or something still in use).", request);
+    }
+
+    @ExceptionHandler(PropertyReferenceException.class)
+    ResponseEntity<Object> unknownSortProperty(PropertyReferenceException e, WebRequest request) {
+        return badRequest(e, List.of(new FieldProblem("sort", "cannot sort by '" + e.getPropertyName() + "'")), request);
+    }
+
+    @ExceptionHandler(Exception.class)
+    ResponseEntity<Object> unexpected(Exception e, WebRequest request) {
+        log.error("Unexpected failure answering {}", describe(request), e);
+        ProblemDetail body = ProblemDetail.forStatusAndDetail(HttpStatus.INTERNAL_SERVER_ERROR,
+                "The server failed to answer this request; the failure has been logged.");
+        body.setType(ProblemTypes.INTERNAL);
+        return handleExceptionInternal(e, body, new HttpHeaders(), HttpStatus.INTERNAL_SERVER_ERROR, request);
+    }
+
+    @Override
+    protected ResponseEntity<Object> handleMissingServletRequestParameter(
+            MissingServletRequestParameterException e, HttpHeaders headers, HttpStatusCode status, WebRequest request) {
+        return badRequest(e, List.of(new FieldProblem(e.getParameterName(), "is required")), request);
+    }
+
+    @Override
+    protected ResponseEntity<Object> handleTypeMismatch(
+            TypeMismatchException e, HttpHeaders headers, HttpStatusCode status, WebRequest request) {
+        String name = e.getPropertyName() != null ? e.getPropertyName() : "value";
+        String expected = e.getRequiredType() != null ? e.getRequiredType().getSimpleName() : "another type";
+        return badRequest(e, List.of(new FieldProblem(name, "must be a " + expected + ", was '" + e.getValue() + "'")), request);
+    }
+
+    @Override
+    protected ResponseEntity<Object> handleMethodArgumentNotValid(
+            MethodArgumentNotValidException e, HttpHeaders headers, HttpStatusCode status, WebRequest request) {
+        List<FieldProblem> problems = new ArrayList<>();
+        for (FieldError f : e.getBindingResult().getFieldErrors()) {
+            problems.add(new FieldProblem(f.getField(), f.getDefaultMessage()));
+        }
+        e.getBindingResult().getGlobalErrors().forEach(g -> problems.add(new FieldProblem(g.getObjectName(), g.getDefaultMessage())));
+        return badRequest(e, problems, request);
+    }
+
+    @Override
+    protected ResponseEntity<Object> handleHandlerMethodValidationException(
+            HandlerMethodValidationException e, HttpHeaders headers, HttpStatusCode status, WebRequest request) {
+        List<FieldProblem> problems = new ArrayList<>();
+        e.getParameterValidationResults().forEach(result -> {
+            String name = result.getMethodParameter().getParameterName();
+            for (MessageSourceResolvable error : result.getResolvableErrors()) {
+                String field = error instanceof FieldError f ? f.getField() : name;
+                problems.add(new FieldProblem(field, error.getDefaultMessage()));
+            }
+        });
+        return badRequest(e, problems, request);
+    }
+
+    @Override
+    protected ResponseEntity<Object> handleHttpMessageNotReadable(
+            HttpMessageNotReadableException e, HttpHeaders headers, HttpStatusCode status, WebRequest request) {
+        String field = jsonField(e);
+        if (field != null) {
+            return badRequest(e, List.of(new FieldProblem(field, "has a value of the wrong type or form")), request);
+        }
+        ProblemDetail body = ProblemDetail.forStatusAndDetail(HttpStatus.BAD_REQUEST,
+                "The request body is missing or is not valid JSON of the expected shape.");
+        body.setType(ProblemTypes.INVALID_PARAMETERS);
+        return handleExceptionInternal(e, body, headers, HttpStatus.BAD_REQUEST, request);
+    }
+
+    @Override
+    protected ResponseEntity<Object> handleExceptionInternal(
+            Exception e, Object body, HttpHeaders headers, HttpStatusCode status, WebRequest request) {
+        if (body == null && e instanceof ErrorResponse errorResponse) {
+            body = errorResponse.updateAndGetBody(getMessageSource(), LocaleContextHolder.getLocale());
+        }
+        if (body instanceof ProblemDetail problem) {
+            // RFC 9457 lets an absent type mean about:blank; clients read better when it is spelled out.
+            if (problem.getType() == null) {
+                problem.setType(ABOUT_BLANK);
+            }
+            if (problem.getInstance() == null && request instanceof ServletWebRequest web) {
+                problem.setInstance(URI.create(web.getRequest().getRequestURI()));
+            }
+        }
+        return super.handleExceptionInternal(e, body, headers, status, request);
+    }
+
+    private ResponseEntity<Object> problem(Exception e, HttpStatus status, URI type, String title, String detail, WebRequest request) {
+        ProblemDetail body = ProblemDetail.forStatusAndDetail(status, detail);
+        body.setType(type);
+        body.setTitle(title);
+        return handleExceptionInternal(e, body, new HttpHeaders(), status, request);
+    }
+
+    private ResponseEntity<Object> badRequest(Exception e, List<FieldProblem> problems, WebRequest request) {
+        ProblemDetail body = ProblemDetail.forStatus(HttpStatus.BAD_REQUEST);
+        body.setType(ProblemTypes.INVALID_PARAMETERS);
+        body.setTitle("Invalid request parameters");
+        body.setDetail(summary(problems));
+        if (!problems.isEmpty()) {
+            body.setProperty("parameter", problems.get(0).field());
+        }
+        body.setProperty("errors", problems.stream().map(p -> Map.of("field", p.field(), "message", p.message())).toList());
+        return handleExceptionInternal(e, body, new HttpHeaders(), HttpStatus.BAD_REQUEST, request);
+    }
+
+    private static String summary(List<FieldProblem> problems) {
+        StringBuilder text = new StringBuilder();
+        for (FieldProblem p : problems) {
+            text.append(text.length() == 0 ? "" : "; ").append(p.field()).append(' ').append(p.message());
+        }
+        return text.length() == 0 ? "The request is not valid." : text.toString();
+    }
+
+    /** The body field a JSON mapping failure is about ({@code exposures[0].seconds}), or null when there is none. */
+    private static String jsonField(Throwable e) {
+        for (Throwable t = e; t != null; t = t.getCause()) {
+            if (t instanceof JacksonException j && !j.getPath().isEmpty()) {
+                StringBuilder path = new StringBuilder();
+                for (JacksonException.Reference ref : j.getPath()) {
+                    if (ref.getPropertyName() != null) {
+                        path.append(path.length() == 0 ? "" : ".").append(ref.getPropertyName());
+                    } else if (ref.getIndex() >= 0) {
+                        path.append('[').append(ref.getIndex()).append(']');
+                    }
+                }
+                return path.length() == 0 ? null : path.toString();
+            }
+        }
+        return null;
+    }
+
+    private static String lastNode(String path) {
+        int dot = path.lastIndexOf('.');
+        return dot < 0 ? path : path.substring(dot + 1);
+    }
+
+    private static String describe(WebRequest request) {
+        return request instanceof NativeWebRequest n && n.getNativeRequest() instanceof jakarta.servlet.http.HttpServletRequest http
+                ? http.getMethod() + " " + http.getRequestURI()
+                : request.getDescription(false);
+    }
+}

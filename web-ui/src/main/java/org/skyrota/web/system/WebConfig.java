@@ -1,0 +1,27 @@
+package org.skyrota.web.system;
+
+import java.util.Locale;
+
+import org.springframework.context.annotation.Configuration;
+import org.springframework.core.convert.converter.Converter;
+import org.springframework.core.convert.converter.ConverterFactory;
+import org.springframework.format.FormatterRegistry;
+import org.springframework.web.servlet.config.annotation.WebMvcConfigurer;
+
+/** Query parameters name enum values in lower case, as the JSON does ({@code ?state=submitted}). */
+@Configuration
+class WebConfig implements WebMvcConfigurer {
+
+    @Override
+    public void addFormatters(FormatterRegistry registry) {
+        registry.addConverterFactory(new LowerCaseEnums());
+    }
+
+    @SuppressWarnings({"rawtypes", "unchecked"})
+    private static final class LowerCaseEnums implements ConverterFactory<String, Enum> {
+        @Override
+        public <T extends Enum> Converter<String, T> getConverter(Class<T> type) {
+            return text -> text.isBlank() ? null : (T) Enum.valueOf(type, text.trim().toUpperCase(Locale.ROOT));
+        }
+    }
+}
