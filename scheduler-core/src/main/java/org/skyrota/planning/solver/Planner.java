@@ -1,0 +1,193 @@
+package org.skyrota.planning.solver;
+
+import java.time.Duration;
+import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.HashMap;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Set;
+import java.util.concurrent.ExecutionException;
+import java.util.function.Consumer;
+import java.util.stream.Collectors;
+
+import org.optaplanner.core.api.score.ScoreExplanation;
+import org.optaplanner.core.api.score.buildin.hardmediumsoftlong.HardMediumSoftLongScore;
+import org.optaplanner.core.api.score.constraint.ConstraintMatch;
+import org.optaplanner.core.api.score.constraint.ConstraintMatchTotal;
+import org.optaplanner.core.api.score.stream.ConstraintProvider;
+import org.optaplanner.core.api.solver.SolutionManager;
+import org.optaplanner.core.api.solver.SolverFactory;
+import org.optaplanner.core.api.solver.SolverJob;
+import org.optaplanner.core.api.solver.SolverManager;
+import org.optaplanner.core.config.constructionheuristic.ConstructionHeuristicPhaseConfig;
+import org.optaplanner.core.config.constructionheuristic.ConstructionHeuristicType;
+import org.optaplanner.core.config.localsearch.LocalSearchPhaseConfig;
+import org.optaplanner.core.config.solver.SolverConfig;
+import org.optaplanner.core.config.solver.termination.TerminationConfig;
+import org.skyrota.planning.candidates.CandidateGenerator;
+import org.skyrota.planning.candidates.PreparedProblem;
+import org.skyrota.planning.domain.PlannerWeights;
+import org.skyrota.planning.domain.Schedule;
+import org.skyrota.planning.domain.Visit;
+import org.skyrota.planning.explain.LeftOutExplainer;
+import org.skyrota.planning.model.Assignment;
+import org.skyrota.planning.model.PlanningProblem;
+import org.skyrota.planning.sky.SkyModel;
+
+/**
+ * The planner's front door: prepare the candidates from the sky, solve with OptaPlanner, explain the result.
+ * The score rules are passed in as a {@link ConstraintProvider} class because they live in the constraints module,
+ * which depends on this one. Thread-safe; each call runs its own solver.
+ */
+public final class Planner {
+    private final SkyModel sky;
+    private final Class<? extends ConstraintProvider> constraints;
+
+    public Planner(SkyModel sky, Class<? extends ConstraintProvider> constraints) {
+        if (sky == null || constraints == null) {
+            throw new IllegalArgumentException("sky model and constraint provider must not be null");
+        }
+        this.sky = sky;
+        this.constraints = constraints;
+    }
+
+    /** Candidate generation only: the schedule with every candidate, nothing placed except the pins. */
+    public PreparedProblem prepare(PlanningProblem problem, SolveOptions options) {
+        return new CandidateGenerator(sky).prepare(problem,
+                PlannerWeights.defaults().withOverrides(options.weightOverrides()));
+    }
+
+    /** Plans from scratch (pins stay where they are pinned). */
+    public PlanResult solve(PlanningProblem problem, SolveOptions options) {
+        return solve(problem, options, p -> { });
+    }
+
+    /** Plans from scratch, calling {@code progress} with every new best plan. */
+    public PlanResult solve(PlanningProblem problem, SolveOptions options, Consumer<Progress> progress) {
+        return solvePrepared(prepare(problem, options), options, progress);
+    }
+
+    /**
+     * Re-plans after a change (a closed night, a failed visit, new pins): the current plan becomes the plan to keep,
+     * each visit starts where it is if that is still allowed, pinned visits never move, and only what must move does
+     * (every move off the current plan costs the stability weight).
+     */
+    public PlanResult replan(PlanningProblem changed, PlanResult current, SolveOptions options, Consumer<Progress> progress) {
+        PreparedProblem prepared = prepare(changed.withPublished(current.assignments()), options);
+        for (Visit v : prepared.schedule().visits()) {
+            if (!v.isPinned() && v.hasCandidate(v.getPublished())) {
+                v.setPlacement(v.getPublished());
+            }
+        }
+        return solvePrepared(prepared, options, progress);
+    }
+
+    /** Solves an already prepared problem in place. */
+    public PlanResult solvePrepared(PreparedProblem prepared, SolveOptions options, Consumer<Progress> progress) {
+        SolverConfig config = solverConfig(options);
+        SolverFactory<Schedule> factory = SolverFactory.create(config);
+        long startNanos = System.nanoTime();
+        Schedule solved;
+        try (SolverManager<Schedule, Long> manager = SolverManager.create(factory)) {
+            SolverJob<Schedule, Long> job = manager.solveAndListen(1L, id -> prepared.schedule(),
+                    best -> progress.accept(progressOf(best, startNanos)));
+            solved = job.getFinalBestSolution();
+        } catch (InterruptedException e) {
+            Thread.currentThread().interrupt();
+            throw new IllegalStateException("planner run interrupted", e);
+        } catch (ExecutionException e) {
+            throw new IllegalStateException("planner run failed: " + e.getCause().getMessage(), e.getCause());
+        }
+        PreparedProblem result = new PreparedProblem(prepared.problem(), solved, prepared.telescopes(), prepared.sites(),
+                prepared.requestByVisit(), prepared.statsByVisit(), prepared.candidateCount(), prepared.placementCount());
+        return evaluate(result);
+    }
+
+    /** Scores and explains a schedule as it stands (for example the greedy baseline's). */
+    public PlanResult evaluate(PreparedProblem prepared) {
+        SolverFactory<Schedule> factory = SolverFactory.create(solverConfig(SolveOptions.of(Duration.ofSeconds(1))));
+        ScoreExplanation<Schedule, HardMediumSoftLongScore> explanation =
+                SolutionManager.<Schedule, HardMediumSoftLongScore>create(factory).explain(prepared.schedule());
+        Schedule schedule = prepared.schedule();
+        Map<String, HardMediumSoftLongScore> byRule = new LinkedHashMap<>();
+        List<String> hard = new ArrayList<>();
+        for (ConstraintMatchTotal<HardMediumSoftLongScore> total : explanation.getConstraintMatchTotalMap().values()) {
+            byRule.put(total.getConstraintName(), total.getScore());
+            for (ConstraintMatch<HardMediumSoftLongScore> match : total.getConstraintMatchSet()) {
+                if (match.getScore().hardScore() < 0) {
+                    String who = match.getIndictedObjectList().stream()
+                            .filter(Visit.class::isInstance).map(o -> describe((Visit) o, prepared))
+                            .collect(Collectors.joining(" and "));
+                    hard.add(total.getConstraintName() + ": " + (who.isEmpty() ? match.getIndictedObjectList() : who)
+                            + " (" + match.getScore().hardScore() + ")");
+                }
+            }
+        }
+        List<PlannedVisit> planned = new ArrayList<>();
+        for (Visit v : schedule.visits()) {
+            if (v.isPlaced()) {
+                planned.add(new PlannedVisit(v.id(), v.requestId(), prepared.telescope(v.telescopeIndex()).id(),
+                        schedule.instantOf(v.startMinute()), schedule.instantOf(v.endMinute()), v.isPinned()));
+            }
+        }
+        planned.sort(Comparator.comparing(PlannedVisit::start).thenComparing(PlannedVisit::telescopeId));
+        Map<String, String> reasons = new LeftOutExplainer().explain(prepared);
+        List<LeftOutVisit> leftOut = new ArrayList<>();
+        for (Visit v : schedule.visits()) {
+            if (!v.isPlaced()) {
+                leftOut.add(new LeftOutVisit(v.id(), v.requestId(), v.priority(), reasons.get(v.id())));
+            }
+        }
+        return new PlanResult(List.copyOf(planned), List.copyOf(leftOut), explanation.getScore(), byRule,
+                List.copyOf(hard), prepared);
+    }
+
+    private static String describe(Visit v, PreparedProblem prepared) {
+        return v.id() + (v.isPinned() ? " (pinned)" : "") + " on " + prepared.telescope(v.telescopeIndex()).id()
+                + " at " + prepared.schedule().instantOf(v.startMinute());
+    }
+
+    private SolverConfig solverConfig(SolveOptions options) {
+        TerminationConfig termination = new TerminationConfig()
+                .withSpentLimit(options.timeLimit());
+        if (options.unimprovedTimeLimit() != null) {
+            termination.setUnimprovedSpentLimit(options.unimprovedTimeLimit());
+        }
+        return new SolverConfig()
+                .withSolutionClass(Schedule.class)
+                .withEntityClasses(Visit.class)
+                .withConstraintProviderClass(constraints)
+                .withRandomSeed(options.randomSeed())
+                .withTerminationConfig(termination)
+                .withPhases(new ConstructionHeuristicPhaseConfig()
+                                .withConstructionHeuristicType(ConstructionHeuristicType.FIRST_FIT_DECREASING),
+                        new LocalSearchPhaseConfig());
+    }
+
+    private static Progress progressOf(Schedule best, long startNanos) {
+        int placed = 0;
+        long weighted = 0;
+        for (Visit v : best.visits()) {
+            if (v.isPlaced()) {
+                placed++;
+                weighted += v.priorityWeight() * v.nominalMinutes();
+            }
+        }
+        return new Progress(best.score(), Duration.ofNanos(System.nanoTime() - startNanos), placed, weighted);
+    }
+
+    /** The visits of {@code result} that sit exactly where they sit in {@code assignments}. */
+    public static Set<String> unchanged(PlanResult result, List<Assignment> assignments) {
+        Map<String, Assignment> before = new HashMap<>();
+        assignments.forEach(a -> before.put(a.visitId(), a));
+        return result.planned().stream()
+                .filter(p -> {
+                    Assignment a = before.get(p.visitId());
+                    return a != null && a.telescopeId().equals(p.telescopeId()) && a.start().equals(p.start());
+                })
+                .map(PlannedVisit::visitId)
+                .collect(Collectors.toSet());
+    }
+}
