@@ -1,0 +1,109 @@
+package org.skyrota.sky.visibility;
+
+import java.time.LocalDate;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Objects;
+import org.skyrota.sky.events.SkyAtSite;
+import org.skyrota.sky.site.Night;
+import org.skyrota.sky.site.SiteLocation;
+
+/**
+ * Visibility windows by the plain definition: every constraint is evaluated from exact
+ * positions once a minute through each night, and each change between two samples is refined
+ * by bisection to under a second. Slow but obviously right; {@link BatchVisibility} is the fast
+ * path and is tested against this one.
+ *
+ * <p>Windows shorter than {@link VisibilityWindow#MIN_DURATION} are dropped (a minute's
+ * sampling cannot see them reliably, and no visit fits in them).
+ */
+public final class VisibilityCalculator {
+
+    /** Sampling step of the per-instant path, seconds. */
+    public static final double STEP_SECONDS = 60;
+    private static final double REFINE_SECONDS = 0.25;
+
+    private VisibilityCalculator() {
+    }
+
+    /** The windows of every night from {@code from} to {@code to} inclusive, in time order. */
+    public static List<VisibilityWindow> windows(SiteLocation site, FixedTarget target,
+            ObservingConstraints constraints, LocalDate from, LocalDate to) {
+        Objects.requireNonNull(site, "site");
+        Objects.requireNonNull(target, "target");
+        Objects.requireNonNull(constraints, "constraints");
+        Objects.requireNonNull(from, "from");
+        Objects.requireNonNull(to, "to");
+        if (to.isBefore(from)) {
+            throw new IllegalArgumentException("to must not be before from: from " + from + ", to " + to);
+        }
+        InstantConditions conditions = new InstantConditions(site, constraints);
+        List<VisibilityWindow> out = new ArrayList<>();
+        for (LocalDate d = from; !d.isAfter(to); d = d.plusDays(1)) {
+            night(conditions, target, Night.of(site, d), out);
+        }
+        return out;
+    }
+
+    /** The windows of one night. */
+    public static List<VisibilityWindow> windows(SiteLocation site, FixedTarget target,
+            ObservingConstraints constraints, LocalDate night) {
+        return windows(site, target, constraints, night, night);
+    }
+
+    private static void night(InstantConditions c, FixedTarget target, Night night, List<VisibilityWindow> out) {
+        double t0 = SkyAtSite.toEpochSecond(night.start());
+        double t1 = SkyAtSite.toEpochSecond(night.end());
+        int n = (int) Math.ceil((t1 - t0) / STEP_SECONDS);
+        boolean inside = false;
+        double start = 0;
+        double maxAlt = -90;
+        double prevT = t0;
+        for (int i = 0; i <= n; i++) {
+            double t = Math.min(t1, t0 + i * STEP_SECONDS);
+            boolean ok = c.holds(target, t);
+            double alt = c.lastAltitudeDeg();
+            if (ok && !inside) {
+                start = i == 0 ? t : refine(c, target, prevT, t);
+                maxAlt = alt;
+                c.holds(target, start);
+                if (!Double.isNaN(c.lastAltitudeDeg())) {
+                    maxAlt = Math.max(maxAlt, c.lastAltitudeDeg());
+                }
+                inside = true;
+            } else if (ok) {
+                maxAlt = Math.max(maxAlt, alt);
+            } else if (inside) {
+                double end = refine(c, target, prevT, t);
+                emit(night, start, end, maxAlt, out);
+                inside = false;
+            }
+            prevT = t;
+        }
+        if (inside) {
+            emit(night, start, t1, maxAlt, out);
+        }
+    }
+
+    /** The instant in (a, b] where the conditions change, to within REFINE_SECONDS. */
+    private static double refine(InstantConditions c, FixedTarget target, double a, double b) {
+        boolean atA = c.holds(target, a);
+        while (b - a > REFINE_SECONDS) {
+            double m = 0.5 * (a + b);
+            if (c.holds(target, m) == atA) {
+                a = m;
+            } else {
+                b = m;
+            }
+        }
+        return 0.5 * (a + b);
+    }
+
+    private static void emit(Night night, double start, double end, double maxAlt, List<VisibilityWindow> out) {
+        if (end - start < VisibilityWindow.MIN_DURATION.getSeconds()) {
+            return;
+        }
+        out.add(new VisibilityWindow(night.date(), SkyAtSite.toInstant(start), SkyAtSite.toInstant(end),
+                Math.max(-90, Math.min(90, maxAlt))));
+    }
+}
