@@ -46,8 +46,9 @@ public final class SkyrotaConstraints implements ConstraintProvider {
 
     Constraint telescopeOverlap(ConstraintFactory factory) {
         // Two visits may not use one telescope at the same time; the penalty is the minutes of overlap.
+        // Candidates never span two nights, so the telescope-night key narrows the join without losing a pair.
         return factory.forEachUniquePair(Visit.class,
-                        Joiners.equal(Visit::telescopeIndex),
+                        Joiners.equal(Visit::telescopeNightKey),
                         Joiners.overlapping(Visit::startMinute, Visit::endMinute))
                 .penalizeConfigurableLong((a, b) -> Math.min(a.endMinute(), b.endMinute())
                         - Math.max(a.startMinute(), b.startMinute()))

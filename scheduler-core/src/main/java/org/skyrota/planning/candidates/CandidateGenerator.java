@@ -105,9 +105,11 @@ public final class CandidateGenerator {
             }
         }
         Map<String, VisitStats> stats = new ConcurrentHashMap<>();
+        Map<String, List<List<SkyWindow>>> prefetched = prefetch(problem);
         List<List<Visit>> perRequest = IntStream.range(0, requests.size()).parallel()
                 .mapToObj(i -> new RequestCandidates(problem, requests.get(i), registry, grid,
-                        programs.get(requests.get(i).programId()), grants, pins, published, stats).build())
+                        programs.get(requests.get(i).programId()), grants, pins, published, stats,
+                        prefetched.get(requests.get(i).id())).build())
                 .toList();
         List<Visit> visits = new ArrayList<>();
         Map<String, Request> requestByVisit = new HashMap<>();
@@ -128,6 +130,34 @@ public final class CandidateGenerator {
         Schedule schedule = new Schedule(epoch, grid, telescopeIds, closedNights, grants, visits, weights);
         return new PreparedProblem(problem, schedule, telescopes, sites, requestByVisit, Map.copyOf(stats),
                 candidateCount, registry.size());
+    }
+
+    /**
+     * Windows of all fixed-target requests at every site over the whole horizon, asked in one batch per distinct set
+     * of limits; by request id, then site index.
+     */
+    private Map<String, List<List<SkyWindow>>> prefetch(PlanningProblem problem) {
+        Map<ObservingLimits, List<Request>> byLimits = new LinkedHashMap<>();
+        for (Request r : problem.requests()) {
+            if (!r.target().solar()) {
+                byLimits.computeIfAbsent(r.limits(), k -> new ArrayList<>()).add(r);
+            }
+        }
+        Map<String, List<List<SkyWindow>>> result = new HashMap<>();
+        for (Map.Entry<ObservingLimits, List<Request>> e : byLimits.entrySet()) {
+            List<Request> group = e.getValue();
+            List<org.skyrota.planning.model.Target> targets = group.stream().map(Request::target).toList();
+            List<List<List<SkyWindow>>> windows = sky.windows(problem.sites(), targets, e.getKey(),
+                    problem.firstNight(), problem.lastNight());
+            for (int t = 0; t < group.size(); t++) {
+                List<List<SkyWindow>> bySite = new ArrayList<>();
+                for (int s = 0; s < problem.sites().size(); s++) {
+                    bySite.add(windows.get(s).get(t));
+                }
+                result.put(group.get(t).id(), bySite);
+            }
+        }
+        return result;
     }
 
     /** Shared placements, one per telescope and minute; thread-safe because requests are prepared in parallel. */
@@ -202,7 +232,7 @@ public final class CandidateGenerator {
 
         RequestCandidates(PlanningProblem problem, Request request, PlacementRegistry registry, int grid, Program program,
                           List<ProgramGrant> grants, Map<String, Assignment> pins, Map<String, Assignment> published,
-                          Map<String, VisitStats> stats) {
+                          Map<String, VisitStats> stats, List<List<SkyWindow>> prefetched) {
             this.problem = problem;
             this.request = request;
             this.registry = registry;
@@ -213,6 +243,19 @@ public final class CandidateGenerator {
             this.pins = pins;
             this.published = published;
             this.stats = stats;
+            if (prefetched != null) {
+                for (int s = 0; s < prefetched.size(); s++) {
+                    Site site = registry.sites().get(s);
+                    double minAlt = Math.max(request.limits().minAltitudeDeg(), site.horizonAltitudeDeg());
+                    Map<LocalDate, List<SkyWindow>> byNight = new HashMap<>();
+                    for (SkyWindow w : prefetched.get(s)) {
+                        byNight.computeIfAbsent(w.night(), k -> new ArrayList<>()).add(w);
+                    }
+                    for (LocalDate d = problem.firstNight(); !d.isAfter(problem.lastNight()); d = d.plusDays(1)) {
+                        windowCache.put(site.id() + "|" + minAlt + "|" + d, byNight.getOrDefault(d, List.of()));
+                    }
+                }
+            }
         }
 
         List<Visit> build() {
