@@ -72,7 +72,10 @@ public final class Planner {
         return solve(problem, options, p -> { });
     }
 
-    /** Plans from scratch, calling {@code progress} with every new best plan. */
+    /**
+     * Plans from scratch, calling {@code progress} with every new best plan (from the solver's thread) and once more
+     * with the final plan.
+     */
     public PlanResult solve(PlanningProblem problem, SolveOptions options, Consumer<Progress> progress) {
         return solvePrepared(prepare(problem, options), options, progress);
     }
@@ -109,6 +112,8 @@ public final class Planner {
             SolverJob<Schedule, Long> job = manager.solveAndListen(1L, id -> prepared.schedule(),
                     best -> progress.accept(progressOf(best, startNanos)));
             solved = job.getFinalBestSolution();
+            // Always report the final plan, also when the search found nothing better than its start.
+            progress.accept(progressOf(solved, startNanos));
         } catch (InterruptedException e) {
             Thread.currentThread().interrupt();
             throw new IllegalStateException("planner run interrupted", e);
