@@ -33,15 +33,15 @@ public final class PlannerTermBench {
         System.out.println(String.format(Locale.ROOT,
                 "BENCH planner-term hard=%d placedHours=%.1f greedyPlacedHours=%.1f ratioToGreedy=%.3f secondsTo99=%.1f"
                         + " peakMemoryMb=%d visits=%d placed=%d greedyPlaced=%d candidates=%d placements=%d"
-                        + " prepareSeconds=%.1f solveSeconds=%.1f greedyHard=%d",
+                        + " prepareSeconds=%.1f solveSeconds=%.1f greedyHard=%d boundRatioToGreedy=%.3f",
                 o.hard, o.placedHours, o.greedyHours, o.ratio, o.secondsTo99, peakHeapMb(), o.visits, o.placed,
                 o.greedyPlaced, o.prepared.candidateCount(), o.prepared.placementCount(), o.prepareSeconds,
-                o.solveSeconds, o.greedyHard));
+                o.solveSeconds, o.greedyHard, o.boundRatio));
     }
 
     record Outcome(PlanningProblem problem, PreparedProblem prepared, PlanResult result, Planner planner, int hard,
                    double placedHours, double greedyHours, double ratio, double secondsTo99, int visits, int placed,
-                   int greedyPlaced, double prepareSeconds, double solveSeconds, int greedyHard) {
+                   int greedyPlaced, double prepareSeconds, double solveSeconds, int greedyHard, double boundRatio) {
     }
 
     static Outcome run(long seed, double seconds) {
@@ -59,6 +59,7 @@ public final class PlannerTermBench {
             System.err.println("greedy " + greedy.score() + " weighted=" + weighted(prepared));
         }
         long greedyWeighted = weighted(prepared);
+        double boundRatio = (double) weightedUpperBound(prepared) / greedyWeighted;
         int greedyPlaced = greedy.planned().size();
         int greedyHard = greedy.hardViolations().size();
         for (Visit v : prepared.schedule().visits()) {
@@ -93,7 +94,48 @@ public final class PlannerTermBench {
         return new Outcome(problem, solved, result, planner, result.hardViolations().size(),
                 placedMinutes(solved) / 60.0, greedyHours, (double) finalWeighted / greedyWeighted, secondsTo99,
                 solved.schedule().visits().size(), result.planned().size(), greedyPlaced, prepareSeconds, solveSeconds,
-                greedyHard);
+                greedyHard, boundRatio);
+    }
+
+    /**
+     * An upper bound on the priority-weighted time of any plan: the telescope time that any candidate can use at all
+     * (the union of candidate intervals per telescope), filled with the visits of highest weight per minute first as
+     * if visits could go anywhere and be split. Loose, but it shows how far above greedy any plan could possibly go.
+     */
+    static long weightedUpperBound(PreparedProblem p) {
+        java.util.Map<Integer, java.util.TreeMap<Integer, Integer>> busy = new java.util.HashMap<>();
+        List<Visit> visits = new ArrayList<>();
+        for (Visit v : p.schedule().visits()) {
+            if (v.candidateCount() > 0) {
+                visits.add(v);
+            }
+            for (var c : v.getCandidates()) {
+                busy.computeIfAbsent(c.telescopeIndex(), k -> new java.util.TreeMap<>())
+                        .merge(c.startMinute(), c.startMinute() + v.lengthOn(c.telescopeIndex()), Math::max);
+            }
+        }
+        long capacity = 0;
+        for (var intervals : busy.values()) {
+            int end = Integer.MIN_VALUE;
+            for (var e : intervals.entrySet()) {
+                int s = Math.max(e.getKey(), end);
+                if (e.getValue() > s) {
+                    capacity += e.getValue() - s;
+                    end = e.getValue();
+                }
+            }
+        }
+        visits.sort((a, b) -> Double.compare((double) b.priorityWeight(), (double) a.priorityWeight()));
+        long bound = 0;
+        for (Visit v : visits) {
+            long take = Math.min(capacity, v.nominalMinutes());
+            bound += take * v.priorityWeight();
+            capacity -= take;
+            if (capacity == 0) {
+                break;
+            }
+        }
+        return bound;
     }
 
     static long weighted(PreparedProblem p) {

@@ -28,6 +28,8 @@ import org.optaplanner.core.config.heuristic.selector.move.factory.MoveIteratorF
 import org.optaplanner.core.config.heuristic.selector.move.generic.ChangeMoveSelectorConfig;
 import org.optaplanner.core.config.heuristic.selector.move.generic.SwapMoveSelectorConfig;
 import org.optaplanner.core.config.localsearch.LocalSearchPhaseConfig;
+import org.optaplanner.core.config.localsearch.decider.acceptor.LocalSearchAcceptorConfig;
+import org.optaplanner.core.config.localsearch.decider.forager.LocalSearchForagerConfig;
 import org.optaplanner.core.config.score.director.ScoreDirectorFactoryConfig;
 import org.optaplanner.core.config.solver.SolverConfig;
 import org.optaplanner.core.api.score.stream.ConstraintStreamImplType;
@@ -184,10 +186,35 @@ public final class Planner {
                         .withConstraintStreamImplType(ConstraintStreamImplType.BAVET))
                 .withRandomSeed(options.randomSeed())
                 .withTerminationConfig(termination)
-                .withPhases(new LocalSearchPhaseConfig().withMoveSelectorConfig(new UnionMoveSelectorConfig()
-                                .withMoveSelectors(new ChangeMoveSelectorConfig(), new SwapMoveSelectorConfig(),
-                                        new MoveIteratorFactoryConfig()
-                                                .withMoveIteratorFactoryClass(EjectionMoveFactory.class))));
+                .withPhases(localSearch());
+    }
+
+    private static LocalSearchPhaseConfig localSearch() {
+        String mode = System.getProperty("skyrota.acceptor", "la");
+        LocalSearchAcceptorConfig acceptor = new LocalSearchAcceptorConfig();
+        LocalSearchForagerConfig forager = new LocalSearchForagerConfig();
+        switch (mode) {
+            case "la100" -> {
+                acceptor.setLateAcceptanceSize(100);
+                forager.setAcceptedCountLimit(1);
+            }
+            case "tabu" -> {
+                acceptor.setEntityTabuRatio(0.05);
+                forager.setAcceptedCountLimit(1000);
+            }
+            case "sa" -> {
+                acceptor.setSimulatedAnnealingStartingTemperature("0hard/100medium/100soft");
+                forager.setAcceptedCountLimit(4);
+            }
+            default -> {
+                acceptor.setLateAcceptanceSize(400);
+                forager.setAcceptedCountLimit(1);
+            }
+        }
+        return new LocalSearchPhaseConfig().withAcceptorConfig(acceptor).withForagerConfig(forager)
+                .withMoveSelectorConfig(new UnionMoveSelectorConfig()
+                        .withMoveSelectors(new ChangeMoveSelectorConfig(), new SwapMoveSelectorConfig(),
+                                new MoveIteratorFactoryConfig().withMoveIteratorFactoryClass(EjectionMoveFactory.class)));
     }
 
     private static Progress progressOf(Schedule best, long startNanos) {

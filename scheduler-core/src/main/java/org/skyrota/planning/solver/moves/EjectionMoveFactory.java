@@ -20,6 +20,41 @@ import org.skyrota.planning.domain.Visit;
  */
 public final class EjectionMoveFactory implements MoveIteratorFactory<Schedule, ReassignMove> {
 
+    private static Placement firstFree(Visit o, Visit placedVisit, List<Visit> ejected, List<int[]> taken,
+                                       Map<Long, List<Visit>> byTelescopeNight, Random random) {
+        int n = o.candidateCount();
+        if (n == 0) {
+            return null;
+        }
+        int offset = random.nextInt(n);
+        for (int i = 0; i < n; i++) {
+            Placement c = o.getCandidates().get((offset + i) % n);
+            int s = c.startMinute();
+            int e = s + o.lengthOn(c.telescopeIndex());
+            boolean free = true;
+            for (int[] t : taken) {
+                if (t[0] == c.telescopeIndex() && t[1] < e && s < t[2]) {
+                    free = false;
+                    break;
+                }
+            }
+            if (free) {
+                for (Visit w : byTelescopeNight.getOrDefault(c.telescopeIndex() * 1_000_000L + c.nightEpochDay(),
+                        List.of())) {
+                    if (w != placedVisit && !ejected.contains(w) && w.startMinute() < e && s < w.endMinute()) {
+                        free = false;
+                        break;
+                    }
+                }
+            }
+            if (free) {
+                taken.add(new int[] {c.telescopeIndex(), s, e});
+                return c;
+            }
+        }
+        return null;
+    }
+
     @Override
     public long getSize(ScoreDirector<Schedule> scoreDirector) {
         long size = 0;
@@ -65,6 +100,7 @@ public final class EjectionMoveFactory implements MoveIteratorFactory<Schedule, 
                     moved.add(v);
                     to.add(p);
                     boolean blocked = false;
+                    List<Visit> ejected = new ArrayList<>();
                     long key = p.telescopeIndex() * 1_000_000L + p.nightEpochDay();
                     for (Visit o : byTelescopeNight.getOrDefault(key, List.of())) {
                         if (o != v && o.isPlaced() && o.telescopeIndex() == p.telescopeIndex()
@@ -73,13 +109,20 @@ public final class EjectionMoveFactory implements MoveIteratorFactory<Schedule, 
                                 blocked = true;
                                 break;
                             }
-                            moved.add(o);
-                            to.add(null);
+                            ejected.add(o);
                         }
                     }
-                    if (!blocked) {
-                        return new ReassignMove(moved.toArray(new Visit[0]), to.toArray(new Placement[0]));
+                    if (blocked) {
+                        continue;
                     }
+                    // Repair: give each ejected visit the first free candidate, from a random offset, if it has one.
+                    List<int[]> taken = new ArrayList<>();
+                    taken.add(new int[] {p.telescopeIndex(), start, end});
+                    for (Visit o : ejected) {
+                        moved.add(o);
+                        to.add(firstFree(o, v, ejected, taken, byTelescopeNight, random));
+                    }
+                    return new ReassignMove(moved.toArray(new Visit[0]), to.toArray(new Placement[0]));
                 }
                 Visit v = visits.get(random.nextInt(visits.size()));
                 return new ReassignMove(new Visit[] {v}, new Placement[] {v.getPlacement()});
