@@ -97,6 +97,33 @@ class PlannerFacadeTest {
         assertThat(replanned.planned()).noneMatch(p -> nightOf(p.start()).equals(closedNight));
         assertThat(replanned.hardViolations()).isEmpty();
         assertThat(progress).isNotEmpty();
+
+        // The fast path reuses the candidates instead of asking the sky again, with the same guarantees.
+        PlanResult fast = planner.replanAfterClosures(first, List.of(Closure.site("hill", closedNight, "snow")),
+                twoSeconds, p -> { });
+        assertThat((double) Planner.unchanged(fast, outsideTheNight).size() / outsideTheNight.size())
+                .isGreaterThanOrEqualTo(0.9);
+        assertThat(fast.planned()).noneMatch(p -> nightOf(p.start()).equals(closedNight));
+        assertThat(fast.hardViolations()).isEmpty();
+    }
+
+    @Test
+    void aPinOnANightClosedLaterStaysAndTheClosureIsReportedAsAHardViolation() {
+        PlanningProblem problem = TestProblems.random(9, 2, 2, 20);
+        PlanResult first = planner.solve(problem, twoSeconds);
+        PlannedVisit pinnedVisit = first.planned().get(0);
+        PlanResult withPin = planner.solve(problem.withPins(List.of(
+                new Assignment(pinnedVisit.visitId(), pinnedVisit.telescopeId(), pinnedVisit.start()))), twoSeconds);
+
+        PlanResult closed = planner.replanAfterClosures(withPin,
+                List.of(Closure.site("hill", nightOf(pinnedVisit.start()), "storm")), twoSeconds, p -> { });
+
+        assertThat(closed.planned()).anySatisfy(p -> {
+            assertThat(p.visitId()).isEqualTo(pinnedVisit.visitId());
+            assertThat(p.start()).isEqualTo(pinnedVisit.start());
+        });
+        assertThat(closed.hardViolations()).anySatisfy(line ->
+                assertThat(line).startsWith(RuleNames.CLOSED_NIGHT).contains(pinnedVisit.visitId() + " (pinned)"));
     }
 
     @Test

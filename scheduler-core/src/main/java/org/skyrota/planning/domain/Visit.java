@@ -125,6 +125,35 @@ public class Visit {
         this.published = published;
     }
 
+    /**
+     * A fresh copy of this visit (unplaced, not pinned, nothing published) without the candidates {@code drop} rejects,
+     * for re-planning without asking the sky again.
+     */
+    public Visit withoutCandidates(java.util.function.Predicate<Placement> drop) {
+        List<Placement> kept = new java.util.ArrayList<>();
+        java.util.List<Integer> indexes = new java.util.ArrayList<>();
+        for (int i = 0; i < candidates.size(); i++) {
+            if (!drop.test(candidates.get(i))) {
+                kept.add(candidates.get(i));
+                indexes.add(i);
+            }
+        }
+        int n = kept.size();
+        int[] a = new int[n];
+        int[] s = new int[n];
+        int[] u = new int[n];
+        byte[] f = new byte[n];
+        for (int j = 0; j < n; j++) {
+            int i = indexes.get(j);
+            a[j] = airmassCost[i];
+            s[j] = skyCost[i];
+            u[j] = urgencyCost[i];
+            f[j] = flags[i];
+        }
+        return new Visit(id, requestId, repeatIndex, programId, programGrantShare, priority, priorityWeight,
+                nominalMinutes, repeatMinGapMinutes, lengthByTelescope, overheadByTelescope, kept, a, s, u, f);
+    }
+
     public boolean hasCandidate(Placement p) {
         return p != null && Arrays.binarySearch(candidateIds, p.id()) >= 0;
     }

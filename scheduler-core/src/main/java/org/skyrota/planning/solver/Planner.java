@@ -36,12 +36,16 @@ import org.optaplanner.core.api.score.stream.ConstraintStreamImplType;
 import org.optaplanner.core.config.solver.termination.TerminationConfig;
 import org.skyrota.planning.candidates.CandidateGenerator;
 import org.skyrota.planning.candidates.PreparedProblem;
+import org.skyrota.planning.domain.ClosedNight;
+import org.skyrota.planning.domain.Placement;
 import org.skyrota.planning.domain.PlannerWeights;
+import org.skyrota.planning.domain.RuleNames;
 import org.skyrota.planning.domain.Schedule;
 import org.skyrota.planning.domain.Visit;
 import org.skyrota.planning.explain.LeftOutExplainer;
 import org.skyrota.planning.greedy.GreedyDispatcher;
 import org.skyrota.planning.model.Assignment;
+import org.skyrota.planning.model.Closure;
 import org.skyrota.planning.model.PlanningProblem;
 import org.skyrota.planning.sky.SkyModel;
 import org.skyrota.planning.solver.moves.EjectionMoveFactory;
@@ -88,6 +92,7 @@ public final class Planner {
      * (every move off the current plan costs the stability weight).
      */
     public PlanResult replan(PlanningProblem changed, PlanResult current, SolveOptions options, Consumer<Progress> progress) {
+        options = withReplanStability(options);
         PreparedProblem prepared = prepare(changed.withPublished(current.assignments()), options);
         for (Visit v : prepared.schedule().visits()) {
             if (!v.isPinned() && v.hasCandidate(v.getPublished())) {
@@ -96,6 +101,64 @@ public final class Planner {
         }
         return solvePrepared(prepared, options, progress);
     }
+
+    /**
+     * Re-plans after nights were closed, reusing the candidates of {@code current} (no new sky computation, so it is
+     * fast): the closed nights' candidates go, every other visit starts where it is and costs the stability weight
+     * if it moves, pinned visits stay even on a closed night (which is then reported as a hard violation).
+     */
+    public PlanResult replanAfterClosures(PlanResult current, List<Closure> newClosures, SolveOptions options,
+                                          Consumer<Progress> progress) {
+        options = withReplanStability(options);
+        PreparedProblem before = current.prepared();
+        List<ClosedNight> closed = new ArrayList<>(before.schedule().closedNights());
+        for (Closure c : newClosures) {
+            for (int t = 0; t < before.telescopes().size(); t++) {
+                if (c.covers(before.telescope(t), c.night())) {
+                    closed.add(new ClosedNight(t, (int) c.night().toEpochDay(), c.reason()));
+                }
+            }
+        }
+        Set<Long> closedKeys = closed.stream()
+                .map(c -> c.telescopeIndex() * 1_000_000L + c.nightEpochDay()).collect(Collectors.toSet());
+        List<Visit> visits = new ArrayList<>();
+        for (Visit old : before.schedule().visits()) {
+            Placement was = old.getPlacement();
+            Visit v = old.withoutCandidates(p -> p != was || !old.isPinned() ? closedKeys.contains(
+                    p.telescopeIndex() * 1_000_000L + p.nightEpochDay()) : false);
+            v.setPublished(was);
+            if (was != null && v.hasCandidate(was)) {
+                v.setPlacement(was);
+                v.setPinned(old.isPinned());
+            }
+            visits.add(v);
+        }
+        Schedule schedule = new Schedule(before.schedule().epoch(), before.schedule().gridMinutes(),
+                before.schedule().telescopeIds(), closed, before.schedule().grants(), visits,
+                PlannerWeights.defaults().withOverrides(options.weightOverrides()));
+        List<Closure> allClosures = new ArrayList<>(before.problem().closures());
+        allClosures.addAll(newClosures);
+        PreparedProblem prepared = new PreparedProblem(before.problem().withClosures(allClosures)
+                .withPublished(current.assignments()), schedule, before.telescopes(), before.sites(),
+                before.requestByVisit(), before.statsByVisit(), before.candidateCount(), before.placementCount());
+        return solvePrepared(prepared, options, progress);
+    }
+
+    /**
+     * Moving a visit of the plan being re-planned costs {@link #REPLAN_STABILITY} at the medium level unless the run
+     * sets that weight itself: a soft cost would let any small gain in placed time reshuffle the whole plan.
+     */
+    private static SolveOptions withReplanStability(SolveOptions options) {
+        if (options.weightOverrides().containsKey(RuleNames.STABILITY)) {
+            return options;
+        }
+        Map<String, HardMediumSoftLongScore> weights = new HashMap<>(options.weightOverrides());
+        weights.put(RuleNames.STABILITY, REPLAN_STABILITY);
+        return options.withWeights(weights);
+    }
+
+    /** Default weight of "Moved from published plan" when re-planning: one hour of priority-1 time per moved visit. */
+    public static final HardMediumSoftLongScore REPLAN_STABILITY = HardMediumSoftLongScore.ofMedium(60);
 
     /** Solves an already prepared problem in place. */
     public PlanResult solvePrepared(PreparedProblem prepared, SolveOptions options, Consumer<Progress> progress) {
@@ -189,28 +252,16 @@ public final class Planner {
                 .withPhases(localSearch());
     }
 
+    /**
+     * Late acceptance over three kinds of move: change one visit's placement (or leave it out), swap two visits'
+     * placements, and place a visit while ejecting and re-fitting what it overlaps ({@link EjectionMoveFactory}).
+     * Late acceptance beat tabu search and simulated annealing on the CP-SAT optimum test's instance.
+     */
     private static LocalSearchPhaseConfig localSearch() {
-        String mode = System.getProperty("skyrota.acceptor", "la");
         LocalSearchAcceptorConfig acceptor = new LocalSearchAcceptorConfig();
+        acceptor.setLateAcceptanceSize(400);
         LocalSearchForagerConfig forager = new LocalSearchForagerConfig();
-        switch (mode) {
-            case "la100" -> {
-                acceptor.setLateAcceptanceSize(100);
-                forager.setAcceptedCountLimit(1);
-            }
-            case "tabu" -> {
-                acceptor.setEntityTabuRatio(0.05);
-                forager.setAcceptedCountLimit(1000);
-            }
-            case "sa" -> {
-                acceptor.setSimulatedAnnealingStartingTemperature("0hard/100medium/100soft");
-                forager.setAcceptedCountLimit(4);
-            }
-            default -> {
-                acceptor.setLateAcceptanceSize(400);
-                forager.setAcceptedCountLimit(1);
-            }
-        }
+        forager.setAcceptedCountLimit(1);
         return new LocalSearchPhaseConfig().withAcceptorConfig(acceptor).withForagerConfig(forager)
                 .withMoveSelectorConfig(new UnionMoveSelectorConfig()
                         .withMoveSelectors(new ChangeMoveSelectorConfig(), new SwapMoveSelectorConfig(),
