@@ -174,6 +174,31 @@ class PlannerFacadeTest {
         assertThat(medium.scoreByRule().get(RuleNames.PROGRAM_OVER_GRANT).mediumScore()).isNegative();
     }
 
+    @Test
+    void solarVisitsGoOnlyToAnInstrumentWithACertifiedSolarFilterAndCarryTheCaution() {
+        Request solar = new Request("sun", "club", "member", org.skyrota.planning.model.Target.sun(),
+                List.of(new ExposureStep("R", 5, 20)), new org.skyrota.planning.model.ObservingLimits(10,
+                Double.POSITIVE_INFINITY, org.skyrota.planning.model.DarknessLimit.ANY, 0, 1, 0),
+                TestProblems.FIRST, TestProblems.FIRST.plusDays(1), 1, null, null, 5);
+        PlanningProblem base = TestProblems.problem(TestProblems.TELESCOPES, List.of(solar), 2, 200);
+        List<org.skyrota.planning.model.Instrument> certifiedOnB = List.of(
+                new org.skyrota.planning.model.Instrument("hill-a-cam", "hill-a", Set.of("R"), 0, 0, false),
+                new org.skyrota.planning.model.Instrument("hill-b-solar", "hill-b", Set.of("R"), 0, 0, true));
+        PlanningProblem withSolarFilter = new PlanningProblem(base.sites(), base.telescopes(), certifiedOnB,
+                base.programs(), base.requests(), List.of(), List.of(), List.of(), base.firstNight(), base.lastNight(),
+                5, 5);
+
+        PlanResult placed = planner.solve(withSolarFilter, twoSeconds);
+        PlanResult nowhere = planner.solve(base, twoSeconds);
+
+        assertThat(placed.planned()).singleElement().satisfies(p -> {
+            assertThat(p.telescopeId()).isEqualTo("hill-b");
+            assertThat(p.caution()).isEqualTo(org.skyrota.planning.model.SolarSafety.CAUTION);
+        });
+        assertThat(reasonOf(nowhere, "sun")).contains("certified solar filter")
+                .contains(org.skyrota.planning.model.SolarSafety.CAUTION);
+    }
+
     private static String reasonOf(PlanResult result, String visitId) {
         return result.leftOut().stream().filter(l -> l.visitId().equals(visitId)).map(LeftOutVisit::reason)
                 .findFirst().orElseThrow(() -> new AssertionError(visitId + " was placed"));

@@ -15,6 +15,7 @@ import org.skyrota.planning.domain.Placement;
 import org.skyrota.planning.domain.ProgramGrant;
 import org.skyrota.planning.domain.Visit;
 import org.skyrota.planning.model.Request;
+import org.skyrota.planning.model.SolarSafety;
 
 /**
  * Says in plain words why each unplaced visit is unplaced, from its windows (kept by candidate generation) and
@@ -41,7 +42,11 @@ public final class LeftOutExplainer {
         Map<String, String> reasons = new LinkedHashMap<>();
         for (Visit v : visits) {
             if (!v.isPlaced()) {
-                reasons.put(v.id(), reason(prepared, v, byTelescope, programMinutes, grants, byRequest));
+                String reason = reason(prepared, v, byTelescope, programMinutes, grants, byRequest);
+                if (prepared.requestByVisit().get(v.id()).target().solar()) {
+                    reason += ". " + SolarSafety.CAUTION;
+                }
+                reasons.put(v.id(), reason);
             }
         }
         return reasons;

@@ -47,6 +47,7 @@ import org.skyrota.planning.greedy.GreedyDispatcher;
 import org.skyrota.planning.model.Assignment;
 import org.skyrota.planning.model.Closure;
 import org.skyrota.planning.model.PlanningProblem;
+import org.skyrota.planning.model.SolarSafety;
 import org.skyrota.planning.sky.SkyModel;
 import org.skyrota.planning.solver.moves.EjectionMoveFactory;
 
@@ -214,7 +215,8 @@ public final class Planner {
         for (Visit v : schedule.visits()) {
             if (v.isPlaced()) {
                 planned.add(new PlannedVisit(v.id(), v.requestId(), prepared.telescope(v.telescopeIndex()).id(),
-                        schedule.instantOf(v.startMinute()), schedule.instantOf(v.endMinute()), v.isPinned()));
+                        schedule.instantOf(v.startMinute()), schedule.instantOf(v.endMinute()), v.isPinned(),
+                        prepared.requestByVisit().get(v.id()).target().solar() ? SolarSafety.CAUTION : null));
             }
         }
         planned.sort(Comparator.comparing(PlannedVisit::start).thenComparing(PlannedVisit::telescopeId));
