@@ -21,12 +21,9 @@ import org.optaplanner.core.api.solver.SolutionManager;
 import org.optaplanner.core.api.solver.SolverFactory;
 import org.optaplanner.core.api.solver.SolverJob;
 import org.optaplanner.core.api.solver.SolverManager;
-import org.optaplanner.core.config.constructionheuristic.ConstructionHeuristicPhaseConfig;
-import org.optaplanner.core.config.constructionheuristic.ConstructionHeuristicType;
 import org.optaplanner.core.config.heuristic.selector.move.composite.UnionMoveSelectorConfig;
 import org.optaplanner.core.config.heuristic.selector.move.factory.MoveIteratorFactoryConfig;
 import org.optaplanner.core.config.heuristic.selector.move.generic.ChangeMoveSelectorConfig;
-import org.optaplanner.core.config.heuristic.selector.move.generic.SwapMoveSelectorConfig;
 import org.optaplanner.core.config.localsearch.LocalSearchPhaseConfig;
 import org.optaplanner.core.config.localsearch.decider.acceptor.LocalSearchAcceptorConfig;
 import org.optaplanner.core.config.localsearch.decider.forager.LocalSearchForagerConfig;
@@ -255,18 +252,22 @@ public final class Planner {
     }
 
     /**
-     * Late acceptance over three kinds of move: change one visit's placement (or leave it out), swap two visits'
-     * placements, and place a visit while ejecting and re-fitting what it overlaps ({@link EjectionMoveFactory}).
-     * Late acceptance beat tabu search and simulated annealing on the CP-SAT optimum test's instance.
+     * Late acceptance over two kinds of move: change one visit's placement (or leave it out), and place a visit while
+     * ejecting and re-fitting what it overlaps ({@link EjectionMoveFactory}). Measured on the benchmarks: late
+     * acceptance beat tabu search and simulated annealing on the CP-SAT optimum test's instance; a short list (50)
+     * beat the usual 400 on planner-term (1.06 against 1.03 times greedy in 60 s); swap moves (two visits trade
+     * placements, rarely possible with per-visit lengths) only took evaluations from the others.
      */
+    private static final int LATE_ACCEPTANCE_SIZE = 50;
+
     private static LocalSearchPhaseConfig localSearch() {
         LocalSearchAcceptorConfig acceptor = new LocalSearchAcceptorConfig();
-        acceptor.setLateAcceptanceSize(400);
+        acceptor.setLateAcceptanceSize(LATE_ACCEPTANCE_SIZE);
         LocalSearchForagerConfig forager = new LocalSearchForagerConfig();
         forager.setAcceptedCountLimit(1);
         return new LocalSearchPhaseConfig().withAcceptorConfig(acceptor).withForagerConfig(forager)
                 .withMoveSelectorConfig(new UnionMoveSelectorConfig()
-                        .withMoveSelectors(new ChangeMoveSelectorConfig(), new SwapMoveSelectorConfig(),
+                        .withMoveSelectors(new ChangeMoveSelectorConfig(),
                                 new MoveIteratorFactoryConfig().withMoveIteratorFactoryClass(EjectionMoveFactory.class)));
     }
 
