@@ -47,6 +47,7 @@ import org.skyrota.planning.model.PlanningProblem;
 import org.skyrota.planning.model.SolarSafety;
 import org.skyrota.planning.sky.SkyModel;
 import org.skyrota.planning.solver.moves.EjectionMoveFactory;
+import org.skyrota.planning.solver.moves.RepackMoveFactory;
 
 /**
  * The planner's front door: prepare the candidates from the sky, solve with OptaPlanner, explain the result.
@@ -239,6 +240,9 @@ public final class Planner {
         if (options.unimprovedTimeLimit() != null) {
             termination.setUnimprovedSpentLimit(options.unimprovedTimeLimit());
         }
+        if (options.evaluationLimit() > 0) {
+            termination.setScoreCalculationCountLimit(options.evaluationLimit());
+        }
         return new SolverConfig()
                 .withSolutionClass(Schedule.class)
                 .withEntityClasses(Visit.class)
@@ -268,7 +272,8 @@ public final class Planner {
         return new LocalSearchPhaseConfig().withAcceptorConfig(acceptor).withForagerConfig(forager)
                 .withMoveSelectorConfig(new UnionMoveSelectorConfig()
                         .withMoveSelectors(new ChangeMoveSelectorConfig(),
-                                new MoveIteratorFactoryConfig().withMoveIteratorFactoryClass(EjectionMoveFactory.class)));
+                                new MoveIteratorFactoryConfig().withMoveIteratorFactoryClass(EjectionMoveFactory.class),
+                                new MoveIteratorFactoryConfig().withMoveIteratorFactoryClass(RepackMoveFactory.class)));
     }
 
     private static Progress progressOf(Schedule best, long startNanos) {
