@@ -6,6 +6,7 @@ import org.skyrota.web.equipment.EquipmentViews.InstrumentView;
 import org.skyrota.web.equipment.EquipmentViews.TelescopeView;
 import org.skyrota.web.site.Site;
 import org.skyrota.web.site.SiteRepository;
+import org.skyrota.web.system.AuditLog;
 import org.skyrota.web.system.ConflictException;
 import org.skyrota.web.system.FieldProblem;
 import org.skyrota.web.system.InvalidParametersException;
@@ -23,8 +24,10 @@ public class EquipmentService {
     private final TelescopeRepository telescopes;
     private final InstrumentRepository instruments;
     private final SiteRepository sites;
+    private final AuditLog audit;
 
-    EquipmentService(TelescopeRepository telescopes, InstrumentRepository instruments, SiteRepository sites) {
+    EquipmentService(TelescopeRepository telescopes, InstrumentRepository instruments, SiteRepository sites, AuditLog audit) {
+        this.audit = audit;
         this.telescopes = telescopes;
         this.instruments = instruments;
         this.sites = sites;
@@ -51,19 +54,24 @@ public class EquipmentService {
         requireUniqueTelescopeName(site.getId(), form.name().trim(), null);
         Telescope t = new Telescope(site, form.name().trim());
         apply(form, t);
-        return TelescopeView.of(telescopes.save(t));
+        TelescopeView created = TelescopeView.of(telescopes.saveAndFlush(t));
+        audit.record("create", "telescope", created.id(), null, created);
+        return created;
     }
 
     public TelescopeView updateTelescope(long id, TelescopeForm form) {
         Telescope t = telescope(id);
         requireVersionGiven(form.version());
         t.requireVersion("telescope", form.version());
+        TelescopeView before = TelescopeView.of(t);
         Site site = referencedSite(form.siteId());
         requireUniqueTelescopeName(site.getId(), form.name().trim(), t);
         t.setSite(site);
         t.setName(form.name().trim());
         apply(form, t);
-        return TelescopeView.of(telescopes.saveAndFlush(t));
+        TelescopeView after = TelescopeView.of(telescopes.saveAndFlush(t));
+        audit.record("update", "telescope", id, before, after);
+        return after;
     }
 
     public void deleteTelescope(long id, Long version) {
@@ -71,6 +79,7 @@ public class EquipmentService {
         if (version != null) {
             t.requireVersion("telescope", version);
         }
+        audit.record("delete", "telescope", id, TelescopeView.of(t), null);
         telescopes.delete(t);
         telescopes.flush();
     }
@@ -93,13 +102,16 @@ public class EquipmentService {
         }
         Instrument i = new Instrument(t, form.name().trim());
         apply(form, i);
-        return InstrumentView.of(instruments.save(i));
+        InstrumentView created = InstrumentView.of(instruments.saveAndFlush(i));
+        audit.record("create", "instrument", created.id(), null, created);
+        return created;
     }
 
     public InstrumentView updateInstrument(long id, InstrumentForm form) {
         Instrument i = instrument(id);
         requireVersionGiven(form.version());
         i.requireVersion("instrument", form.version());
+        InstrumentView before = InstrumentView.of(i);
         Telescope t = referencedTelescope(form.telescopeId());
         if (!(i.getTelescope().getId().equals(t.getId()) && i.getName().equalsIgnoreCase(form.name().trim()))
                 && instruments.existsByTelescopeIdAndNameIgnoreCase(t.getId(), form.name().trim())) {
@@ -108,7 +120,9 @@ public class EquipmentService {
         i.setTelescope(t);
         i.setName(form.name().trim());
         apply(form, i);
-        return InstrumentView.of(instruments.saveAndFlush(i));
+        InstrumentView after = InstrumentView.of(instruments.saveAndFlush(i));
+        audit.record("update", "instrument", id, before, after);
+        return after;
     }
 
     public void deleteInstrument(long id, Long version) {
@@ -116,6 +130,7 @@ public class EquipmentService {
         if (version != null) {
             i.requireVersion("instrument", version);
         }
+        audit.record("delete", "instrument", id, InstrumentView.of(i), null);
         instruments.delete(i);
         instruments.flush();
     }

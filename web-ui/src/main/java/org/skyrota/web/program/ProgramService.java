@@ -4,6 +4,7 @@ import java.util.ArrayList;
 import java.util.List;
 
 import org.skyrota.web.equipment.TelescopeRepository;
+import org.skyrota.web.system.AuditLog;
 import org.skyrota.web.system.ConflictException;
 import org.skyrota.web.system.FieldProblem;
 import org.skyrota.web.system.InvalidParametersException;
@@ -20,8 +21,10 @@ public class ProgramService {
 
     private final ProgramRepository programs;
     private final TelescopeRepository telescopes;
+    private final AuditLog audit;
 
-    ProgramService(ProgramRepository programs, TelescopeRepository telescopes) {
+    ProgramService(ProgramRepository programs, TelescopeRepository telescopes, AuditLog audit) {
+        this.audit = audit;
         this.programs = programs;
         this.telescopes = telescopes;
     }
@@ -48,7 +51,9 @@ public class ProgramService {
         }
         Program p = new Program(form.code(), form.title().trim(), form.principalInvestigator().trim());
         apply(form, p);
-        return ProgramView.of(programs.save(p));
+        ProgramView created = ProgramView.of(programs.saveAndFlush(p));
+        audit.record("create", "program", created.id(), null, created);
+        return created;
     }
 
     public ProgramView update(long id, ProgramForm form) {
@@ -57,6 +62,7 @@ public class ProgramService {
             throw new InvalidParametersException(List.of(new FieldProblem("version", "is required when editing: send the version you read")));
         }
         p.requireVersion("program", form.version());
+        ProgramView before = ProgramView.of(p);
         if (!p.getCode().equalsIgnoreCase(form.code()) && programs.existsByCodeIgnoreCase(form.code())) {
             throw new ConflictException("A program with code '" + form.code() + "' exists already");
         }
@@ -64,7 +70,9 @@ public class ProgramService {
         p.setTitle(form.title().trim());
         p.setPrincipalInvestigator(form.principalInvestigator().trim());
         apply(form, p);
-        return ProgramView.of(programs.saveAndFlush(p));
+        ProgramView after = ProgramView.of(programs.saveAndFlush(p));
+        audit.record("update", "program", id, before, after);
+        return after;
     }
 
     public void delete(long id, Long version) {
@@ -72,6 +80,7 @@ public class ProgramService {
         if (version != null) {
             p.requireVersion("program", version);
         }
+        audit.record("delete", "program", id, ProgramView.of(p), null);
         programs.delete(p);
         programs.flush();
     }

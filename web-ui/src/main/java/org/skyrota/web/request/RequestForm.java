@@ -16,12 +16,13 @@ import jakarta.validation.constraints.Size;
 /**
  * An observing request as a client sends it. {@code ra} and {@code dec} are decimal degrees
  * or sexagesimal text (see {@link Sexagesimal}); absent conditions take the defaults of the
- * compute endpoints (minimum altitude 30°, astronomical darkness, no Moon limits).
+ * compute endpoints (minimum altitude 30°, astronomical darkness, no Moon limits). {@code owner}
+ * defaults to the signed-in user; only a coordinator or an admin may name someone else.
  */
 record RequestForm(
         Long version,
         @NotNull Long programId,
-        @NotBlank @Size(max = 100) String owner,
+        @Size(max = 100) String owner,
         @NotBlank @Size(max = 100) String targetName,
         @NotBlank String ra,
         @NotBlank String dec,

@@ -5,8 +5,10 @@ import java.util.List;
 
 import jakarta.persistence.criteria.Predicate;
 
+import org.skyrota.web.account.CurrentUser;
 import org.skyrota.web.program.Program;
 import org.skyrota.web.program.ProgramRepository;
+import org.skyrota.web.system.AuditLog;
 import org.skyrota.web.system.ConflictException;
 import org.skyrota.web.system.FieldProblem;
 import org.skyrota.web.system.InvalidParametersException;
@@ -27,8 +29,10 @@ public class RequestService {
 
     private final ObservingRequestRepository requests;
     private final ProgramRepository programs;
+    private final AuditLog audit;
 
-    RequestService(ObservingRequestRepository requests, ProgramRepository programs) {
+    RequestService(ObservingRequestRepository requests, ProgramRepository programs, AuditLog audit) {
+        this.audit = audit;
         this.requests = requests;
         this.programs = programs;
     }
@@ -37,7 +41,10 @@ public class RequestService {
     record Filter(RequestState state, String owner, Long programId, String target) {}
 
     @Transactional(readOnly = true)
-    public PageView<RequestView> list(Filter filter, Pageable pageable) {
+    public PageView<RequestView> list(Filter asked, Pageable pageable) {
+        CurrentUser user = CurrentUser.get();
+        // A requester sees their own requests only, whatever they filter by.
+        Filter filter = user.reviewer() ? asked : new Filter(asked.state(), user.username(), asked.programId(), asked.target());
         Specification<ObservingRequest> spec = (root, query, cb) -> {
             List<Predicate> where = new ArrayList<>();
             if (filter.state() != null) {
@@ -63,23 +70,33 @@ public class RequestService {
     }
 
     public RequestView create(RequestForm form) {
-        ObservingRequest r = new ObservingRequest(referencedProgram(form.programId()), form.owner().trim());
+        CurrentUser user = CurrentUser.get();
+        String owner = form.owner() == null || form.owner().isBlank() ? user.username() : form.owner().trim();
+        if (!user.reviewer() && !owner.equals(user.username())) {
+            throw new InvalidParametersException(List.of(new FieldProblem("owner", "a requester can only create their own requests")));
+        }
+        ObservingRequest r = new ObservingRequest(referencedProgram(form.programId()), owner);
         apply(form, r);
-        return RequestView.of(requests.save(r));
+        RequestView created = RequestView.of(requests.saveAndFlush(r));
+        audit.record("create", KIND, created.id(), null, created);
+        return created;
     }
 
     public RequestView update(long id, RequestForm form) {
         ObservingRequest r = find(id);
         requireVersion(r, form.version());
+        RequestView before = RequestView.of(r);
         if (r.getState() != RequestState.DRAFT) {
             throw new ConflictException("Only a draft can be edited; this request is " + r.getState().name().toLowerCase());
         }
-        if (!r.getOwner().equals(form.owner().trim())) {
+        if (form.owner() != null && !form.owner().isBlank() && !r.getOwner().equals(form.owner().trim())) {
             throw new InvalidParametersException(List.of(new FieldProblem("owner", "cannot be changed by an edit")));
         }
         r.setProgram(referencedProgram(form.programId()));
         apply(form, r);
-        return RequestView.of(requests.saveAndFlush(r));
+        RequestView after = RequestView.of(requests.saveAndFlush(r));
+        audit.record("update", KIND, id, before, after);
+        return after;
     }
 
     /** Moves the request to {@code target}; {@code reason} is required for a rejection. */
@@ -92,8 +109,11 @@ public class RequestService {
         if (reason != null && reason.length() > 500) {
             throw new InvalidParametersException(List.of(new FieldProblem("reason", "may be at most 500 characters")));
         }
+        RequestView before = RequestView.of(r);
         r.moveTo(target, reason == null ? null : reason.trim());
-        return RequestView.of(requests.saveAndFlush(r));
+        RequestView after = RequestView.of(requests.saveAndFlush(r));
+        audit.record("state:" + target.name().toLowerCase(), KIND, id, before, after);
+        return after;
     }
 
     public void delete(long id, Long version) {
@@ -104,12 +124,17 @@ public class RequestService {
         if (r.getState() != RequestState.DRAFT && r.getState() != RequestState.WITHDRAWN) {
             throw new ConflictException("Only a draft or a withdrawn request can be deleted; withdraw it first");
         }
+        audit.record("delete", KIND, id, RequestView.of(r), null);
         requests.delete(r);
         requests.flush();
     }
 
+    /** The request, if the signed-in user may see it; another requester's request does not exist for them. */
     private ObservingRequest find(long id) {
-        return requests.findById(id).orElseThrow(() -> new NotFoundException(KIND, id));
+        CurrentUser user = CurrentUser.get();
+        return requests.findById(id)
+                .filter(r -> user.reviewer() || r.getOwner().equals(user.username()))
+                .orElseThrow(() -> new NotFoundException(KIND, id));
     }
 
     private Program referencedProgram(long programId) {

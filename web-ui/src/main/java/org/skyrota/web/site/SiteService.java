@@ -2,6 +2,7 @@ package org.skyrota.web.site;
 
 import java.util.List;
 
+import org.skyrota.web.system.AuditLog;
 import org.skyrota.web.system.ConflictException;
 import org.skyrota.web.system.InvalidParametersException;
 import org.skyrota.web.system.FieldProblem;
@@ -20,9 +21,11 @@ public class SiteService {
     static final String KIND = "site";
 
     private final SiteRepository sites;
+    private final AuditLog audit;
 
-    SiteService(SiteRepository sites) {
+    SiteService(SiteRepository sites, AuditLog audit) {
         this.sites = sites;
+        this.audit = audit;
     }
 
     @Transactional(readOnly = true)
@@ -50,12 +53,15 @@ public class SiteService {
         }
         Site site = new Site(form.name().trim(), form.latitudeDeg(), form.longitudeDeg(), form.elevationM());
         apply(form, site);
-        return SiteView.of(sites.save(site));
+        SiteView created = SiteView.of(sites.saveAndFlush(site));
+        audit.record("create", KIND, created.id(), null, created);
+        return created;
     }
 
     public SiteView update(long id, SiteForm form) {
         Site site = find(id);
         requireVersionGiven(form.version());
+        SiteView before = SiteView.of(site);
         site.requireVersion(KIND, form.version());
         if (!site.getName().equalsIgnoreCase(form.name().trim()) && sites.existsByNameIgnoreCase(form.name().trim())) {
             throw new ConflictException("A site named '" + form.name().trim() + "' exists already");
@@ -64,7 +70,9 @@ public class SiteService {
         site.setLocation(form.latitudeDeg(), form.longitudeDeg(), form.elevationM());
         apply(form, site);
         // Flush now so that the new version is known to the caller's response.
-        return SiteView.of(sites.saveAndFlush(site));
+        SiteView after = SiteView.of(sites.saveAndFlush(site));
+        audit.record("update", KIND, id, before, after);
+        return after;
     }
 
     public void delete(long id, Long version) {
@@ -72,6 +80,7 @@ public class SiteService {
         if (version != null) {
             site.requireVersion(KIND, version);
         }
+        audit.record("delete", KIND, id, SiteView.of(site), null);
         sites.delete(site);
         sites.flush();
     }

@@ -31,6 +31,7 @@ import org.skyrota.web.compute.SkyComputations.Target;
 import org.skyrota.web.compute.SkyComputations.Window;
 import org.skyrota.web.system.ProblemAdvice;
 import org.springframework.beans.factory.annotation.Autowired;
+import org.springframework.boot.webmvc.test.autoconfigure.AutoConfigureMockMvc;
 import org.springframework.boot.webmvc.test.autoconfigure.WebMvcTest;
 import org.springframework.context.annotation.Import;
 import org.springframework.http.MediaType;
@@ -44,6 +45,7 @@ import org.springframework.test.web.servlet.MockMvc;
  * {@link ComputeEndpointsSkyTest} against an independent library.
  */
 @WebMvcTest(ComputeController.class)
+@AutoConfigureMockMvc(addFilters = false)
 @Import(ProblemAdvice.class)
 class ComputeControllerParametersTest {
 

@@ -24,7 +24,10 @@ import org.skyrota.web.equipment.TelescopeRepository;
 import org.skyrota.web.program.ProgramRepository;
 import org.skyrota.web.site.SiteRepository;
 import org.springframework.beans.factory.annotation.Autowired;
+import org.skyrota.web.support.CsrfOnEveryRequest;
 import org.springframework.boot.test.context.SpringBootTest;
+import org.springframework.context.annotation.Import;
+import org.springframework.security.test.context.support.WithMockUser;
 import org.springframework.boot.webmvc.test.autoconfigure.AutoConfigureMockMvc;
 import org.springframework.http.MediaType;
 import org.springframework.test.web.servlet.MockMvc;
@@ -37,6 +40,8 @@ import org.springframework.test.web.servlet.ResultActions;
  */
 @SpringBootTest
 @AutoConfigureMockMvc
+@Import(CsrfOnEveryRequest.class)
+@WithMockUser(username = "coordinator", roles = "COORDINATOR")
 class RequestApiTest {
 
     @Autowired MockMvc mvc;
@@ -129,7 +134,6 @@ class RequestApiTest {
         refused(send(ok.replace("\"repeats\":2", "\"repeats\":0")), "repeats");
         refused(send(ok.replace("2027-02-10", "2027-01-01")), "latestNight");
         refused(send(ok.replace("\"programId\":" + programId, "\"programId\":999999")), "programId");
-        refused(send(ok.replace("\"owner\":\"student\",", "")), "owner");
     }
 
     @Test

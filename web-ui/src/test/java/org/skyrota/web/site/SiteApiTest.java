@@ -17,7 +17,10 @@ import org.junit.jupiter.api.Test;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.CsvSource;
 import org.springframework.beans.factory.annotation.Autowired;
+import org.skyrota.web.support.CsrfOnEveryRequest;
 import org.springframework.boot.test.context.SpringBootTest;
+import org.springframework.context.annotation.Import;
+import org.springframework.security.test.context.support.WithMockUser;
 import org.springframework.boot.webmvc.test.autoconfigure.AutoConfigureMockMvc;
 import org.springframework.http.MediaType;
 import org.springframework.test.web.servlet.MockMvc;
@@ -25,6 +28,8 @@ import org.springframework.test.web.servlet.MockMvc;
 /** The site resource end to end on the embedded database: create, read, list, edit, delete, and every refusal. */
 @SpringBootTest
 @AutoConfigureMockMvc
+@Import(CsrfOnEveryRequest.class)
+@WithMockUser(username = "coordinator", roles = "COORDINATOR")
 class SiteApiTest {
 
     private static final String RIDGE = """

@@ -15,6 +15,7 @@ import jakarta.validation.constraints.NotBlank;
 
 import org.junit.jupiter.api.Test;
 import org.springframework.beans.factory.annotation.Autowired;
+import org.springframework.boot.webmvc.test.autoconfigure.AutoConfigureMockMvc;
 import org.springframework.boot.webmvc.test.autoconfigure.WebMvcTest;
 import org.springframework.context.annotation.Import;
 import org.springframework.http.MediaType;
@@ -28,6 +29,7 @@ import org.springframework.web.bind.annotation.RestController;
 
 /** Every kind of failure leaves the server as a problem document (RFC 9457) with the right status. */
 @WebMvcTest(ProblemAdviceTest.ProbeController.class)
+@AutoConfigureMockMvc(addFilters = false)
 @Import({ProblemAdvice.class, ProblemAdviceTest.ProbeController.class})
 class ProblemAdviceTest {
 

@@ -1,0 +1,108 @@
+package org.skyrota.web.account;
+
+import java.io.IOException;
+
+import jakarta.servlet.http.HttpServletRequest;
+import jakarta.servlet.http.HttpServletResponse;
+
+import org.springframework.context.annotation.Bean;
+import org.springframework.context.annotation.Configuration;
+import org.springframework.http.HttpMethod;
+import org.springframework.http.MediaType;
+import org.springframework.security.config.annotation.web.builders.HttpSecurity;
+import org.springframework.security.crypto.bcrypt.BCryptPasswordEncoder;
+import org.springframework.security.crypto.password.PasswordEncoder;
+import org.springframework.security.web.SecurityFilterChain;
+import org.springframework.security.web.csrf.CookieCsrfTokenRepository;
+import org.springframework.security.web.csrf.CsrfTokenRequestAttributeHandler;
+
+/**
+ * Who may do what. Scripts send HTTP Basic on every call (no session, no CSRF token needed:
+ * a forged cross-site request cannot carry the header); browsers sign in with a form, keep a
+ * session, and send the CSRF token from the {@code XSRF-TOKEN} cookie in {@code X-XSRF-TOKEN}.
+ * The compute endpoints, health and the API description are open; everything else under /api
+ * needs an account, and changes to sites, equipment, programs and accounts need a coordinator
+ * or an admin. Which requests a requester sees is decided in the request service.
+ */
+@Configuration
+class SecurityConfig {
+
+    private static final String[] REFERENCE_DATA = {"/api/sites/**", "/api/telescopes/**", "/api/instruments/**", "/api/programs/**"};
+    private static final String REVIEWER_ROLES_COORDINATOR = "COORDINATOR";
+    private static final String REVIEWER_ROLES_ADMIN = "ADMIN";
+
+    @Bean
+    PasswordEncoder passwordEncoder() {
+        return new BCryptPasswordEncoder();
+    }
+
+    @Bean
+    SecurityFilterChain api(HttpSecurity http) throws Exception {
+        CsrfTokenRequestAttributeHandler plainToken = new CsrfTokenRequestAttributeHandler();
+        http
+                .authorizeHttpRequests(auth -> auth
+                        .requestMatchers(HttpMethod.GET, "/api/almanac", "/api/visibility", "/api/about").permitAll()
+                        .requestMatchers("/actuator/health", "/actuator/health/**", "/actuator/info").permitAll()
+                        .requestMatchers("/v3/api-docs", "/v3/api-docs/**", "/swagger-ui/**", "/swagger-ui.html").permitAll()
+                        .requestMatchers("/api/accounts/me").authenticated()
+                        .requestMatchers("/api/accounts", "/api/accounts/**").hasRole(REVIEWER_ROLES_ADMIN)
+                        .requestMatchers("/api/audit", "/api/audit/**").hasAnyRole(REVIEWER_ROLES_COORDINATOR, REVIEWER_ROLES_ADMIN)
+                        .requestMatchers(HttpMethod.GET, REFERENCE_DATA).authenticated()
+                        .requestMatchers(REFERENCE_DATA).hasAnyRole(REVIEWER_ROLES_COORDINATOR, REVIEWER_ROLES_ADMIN)
+                        .requestMatchers(HttpMethod.POST, "/api/requests/*/accept", "/api/requests/*/reject")
+                        .hasAnyRole(REVIEWER_ROLES_COORDINATOR, REVIEWER_ROLES_ADMIN)
+                        .requestMatchers("/api/**", "/actuator/**").authenticated()
+                        .anyRequest().permitAll())
+                .httpBasic(basic -> basic.realmName("Skyrota").authenticationEntryPoint(SecurityConfig::unauthorized))
+                .formLogin(form -> form.permitAll())
+                .logout(logout -> logout.permitAll())
+                // An API call refused for want of a login must not open a session to remember it.
+                .requestCache(cache -> cache.disable())
+                .csrf(csrf -> csrf
+                        .csrfTokenRepository(CookieCsrfTokenRepository.withHttpOnlyFalse())
+                        .csrfTokenRequestHandler(plainToken)
+                        .ignoringRequestMatchers(SecurityConfig::carriesCredentials))
+                .exceptionHandling(e -> e
+                        .defaultAuthenticationEntryPointFor(SecurityConfig::unauthorized, request -> request.getRequestURI().startsWith("/api/"))
+                        .accessDeniedHandler((request, response, denied) -> problem(request, response, 403, "Forbidden",
+                                carriesCredentials(request) || request.getUserPrincipal() != null
+                                        ? "Your role does not allow this."
+                                        : "A browser session must send the CSRF token (X-XSRF-TOKEN) with every change.")));
+        return http.build();
+    }
+
+    /** Requests that authenticate themselves (HTTP Basic); CSRF protects only cookie sessions. */
+    private static boolean carriesCredentials(HttpServletRequest request) {
+        String header = request.getHeader("Authorization");
+        return header != null && !header.isBlank();
+    }
+
+    private static void unauthorized(HttpServletRequest request, HttpServletResponse response,
+                                     org.springframework.security.core.AuthenticationException e) throws IOException {
+        response.setHeader("WWW-Authenticate", "Basic realm=\"Skyrota\"");
+        problem(request, response, 401, "Unauthorized", "Sign in (HTTP Basic, or a browser session) to use this.");
+    }
+
+    private static void problem(HttpServletRequest request, HttpServletResponse response, int status, String title, String detail)
+            throws IOException {
+        response.setStatus(status);
+        response.setContentType(MediaType.APPLICATION_PROBLEM_JSON_VALUE);
+        response.setCharacterEncoding("UTF-8");
+        response.getWriter().write("{\"type\":\"about:blank\",\"title\":\"" + title + "\",\"status\":" + status
+                + ",\"detail\":\"" + detail + "\",\"instance\":\"" + json(request.getRequestURI()) + "\"}");
+    }
+
+    private static String json(String text) {
+        StringBuilder out = new StringBuilder();
+        for (char c : text.toCharArray()) {
+            if (c == '"' || c == '\\') {
+                out.append('\\').append(c);
+            } else if (c < 0x20) {
+                out.append(String.format("\\u%04x", (int) c));
+            } else {
+                out.append(c);
+            }
+        }
+        return out.toString();
+    }
+}
