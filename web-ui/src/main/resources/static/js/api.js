@@ -55,6 +55,11 @@ export async function api(path, { method = 'GET', body, query, signal } = {}) {
   if (text) {
     try { data = JSON.parse(text); } catch { data = null; }
   }
+  if (res.status === 401 && !path.startsWith('/api/accounts/me')) {
+    // the session ended: back to the sign-in page
+    markSignedIn(false);
+    location.hash = '#/signin';
+  }
   if (!res.ok) throw new ApiError(res.status, data);
   return data;
 }
@@ -234,19 +239,34 @@ export function decText(decDeg) {
 /** The session: `{username, role}` or null; `auth` false when the server has no sign-in at all. */
 export const session = { user: null, auth: true, demo: false };
 
+// The server answers a signed-out call with 401 and `WWW-Authenticate: Basic`, on which browsers
+// open their own password dialog (and headless ones stall). So the dashboard asks who is signed in
+// only when it signed someone in itself: a marker (no secret) in localStorage.
+const SIGNED_IN = 'skyrota.signedIn';
+
+export function markSignedIn(on) {
+  if (on) localStorage.setItem(SIGNED_IN, '1');
+  else localStorage.removeItem(SIGNED_IN);
+}
+
 export async function loadSession() {
+  session.user = null;
+  session.auth = true;
+  session.demo = false;
   try {
-    session.user = await api('/api/accounts/me');
-    session.auth = true;
+    const about = await api('/api/about');
+    session.demo = Boolean(about && about.demo);
   } catch (e) {
-    session.user = null;
-    // A server without accounts answers 404 here: everything is open.
-    session.auth = !(e instanceof ApiError && e.status === 404);
+    // A server without accounts has no /api/about either: everything is open.
+    if (e instanceof ApiError && e.status === 404) session.auth = false;
   }
-  try {
-    const info = await api('/actuator/info');
-    session.demo = Boolean(info && (info.demo === true || (info.app && (info.app.demo === true || info.app.demo === 'true'))));
-  } catch { session.demo = false; }
+  if (session.auth && localStorage.getItem(SIGNED_IN)) {
+    try {
+      session.user = await api('/api/accounts/me');
+    } catch {
+      markSignedIn(false);
+    }
+  }
   return session;
 }
 

@@ -1,5 +1,5 @@
 // The shell: who is signed in, the navigation, and one module per view loaded on demand.
-import { api, clear, el, isReviewer, loadSession, sayStale, session, ensureCsrf } from './api.js';
+import { api, clear, el, isReviewer, loadSession, markSignedIn, sayStale, session, ensureCsrf } from './api.js';
 
 const views = {
   signin: './views/signin.js',
@@ -37,6 +37,7 @@ async function route() {
 }
 
 async function signOut() {
+  markSignedIn(false);
   const token = await ensureCsrf();
   await fetch('/logout', { method: 'POST', credentials: 'same-origin', headers: token ? { 'X-XSRF-TOKEN': token } : {} });
   await refreshShell();

@@ -1,5 +1,5 @@
 // Sign-in: a session cookie from the server's form login, CSRF token from its cookie.
-import { clear, el, ensureCsrf, field, loadSession, say, session } from '../api.js';
+import { clear, el, ensureCsrf, field, markSignedIn, say, session } from '../api.js';
 
 export async function render(main, { refreshShell }) {
   if (!session.auth) {
@@ -29,6 +29,7 @@ export async function render(main, { refreshShell }) {
       pass.focus();
       return;
     }
+    markSignedIn(true);
     await refreshShell();
     if (!session.user) { problem.textContent = 'Signed in, but the server did not confirm the session.'; return; }
     say(`Signed in as ${session.user.username}.`, 'ok');
@@ -37,6 +38,5 @@ export async function render(main, { refreshShell }) {
   clear(main, el('h1', {}, 'Sign in'),
     session.demo ? el('p', { class: 'caution' }, 'This server runs in demo mode: the data is invented and the demo accounts share the password “demo”. Do not enter real observations here.') : null,
     form);
-  await loadSession();
   user.focus();
 }

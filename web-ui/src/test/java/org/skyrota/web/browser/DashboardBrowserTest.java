@@ -61,7 +61,10 @@ class DashboardBrowserTest {
     private static final Path CHROMIUM = Path.of("/usr/bin/chromium");
     private static final Path CHROMEDRIVER = Path.of("/usr/bin/chromedriver");
     private static final Path SCREENSHOTS = Path.of("target", "screenshots");
-    private static final String SCRIPT_NAME = "<script>window.__injected=1</script><b>bold</b> NGC 2068";
+    /** Unique per run, so that demo requests for the same objects are never mistaken for ours. */
+    private static final String RUN = Long.toString(System.currentTimeMillis() % 100000, 36);
+    private static final String TARGET = "NGC 1976 run " + RUN;
+    private static final String SCRIPT_NAME = "<script>window.__injected=1</script><b>bold</b> NGC 2068 run " + RUN;
 
     @LocalServerPort int port;
 
@@ -145,7 +148,7 @@ class DashboardBrowserTest {
     void aBadFieldIsShownBesideItsFieldThenFixedAndTheRequestIsQueued() {
         open("#/new");
         WebElement form = wait.until(ExpectedConditions.visibilityOfElementLocated(By.id("request-form")));
-        type("targetName", "NGC 1976");
+        type("targetName", TARGET);
         type("ra", "05:35:17.3");
         type("dec", "95:00:00");
         chooseFirstProgram();
@@ -165,7 +168,7 @@ class DashboardBrowserTest {
         wait.until(ExpectedConditions.presenceOfElementLocated(By.id("preview-table")));
         shot("04-request-fixed-with-preview");
         form.findElement(By.cssSelector("button[value=queue]")).click();
-        WebElement row = queueRow("NGC 1976");
+        WebElement row = queueRow(TARGET);
         assertThat(row.findElement(By.cssSelector(".state")).getText()).isEqualTo("submitted");
         wait.until(d -> !row.findElement(By.cssSelector("td.next")).getText().equals("…"));
         shot("05-queued");
@@ -184,7 +187,7 @@ class DashboardBrowserTest {
             type("owner", "student");
         }
         browser.findElement(By.cssSelector("#request-form button[value=draft]")).click();
-        WebElement row = queueRow("NGC 2068");
+        WebElement row = queueRow(SCRIPT_NAME);
         WebElement cell = row.findElement(By.cssSelector("td.target"));
         assertThat(cell.getText()).isEqualTo(SCRIPT_NAME);
         assertThat(cell.findElements(By.tagName("b"))).isEmpty();
@@ -200,9 +203,9 @@ class DashboardBrowserTest {
             signOutAndIn("coordinator");
         }
         open("#/queue");
-        WebElement row = queueRow("NGC 1976");
+        WebElement row = queueRow(TARGET);
         row.findElement(By.cssSelector("button[data-action=accept]")).click();
-        wait.until(d -> queueRow("NGC 1976").findElement(By.cssSelector(".state")).getText().equals("accepted"));
+        wait.until(d -> queueRow(TARGET).findElement(By.cssSelector(".state")).getText().equals("accepted"));
         shot("07-accepted");
     }
 
@@ -282,7 +285,7 @@ class DashboardBrowserTest {
             assertNoHorizontalScroll();
             shot("12-phone-tonight");
             open("#/queue");
-            queueRow("NGC 1976");
+            queueRow(TARGET);
             assertNoHorizontalScroll();
             shot("13-phone-queue");
             open("#/new");
