@@ -11,8 +11,11 @@ public final class MoonlightSkyBrightness {
     }
 
     /**
-     * Sky brightness added by moonlight at the target (the paper's eq. 15, with f(ρ) of
-     * eq. 21, the Moon's illuminance I* of eq. 20 and the air mass X(Z) of eq. 3).
+     * Sky brightness added by moonlight at the target, as the paper models it:
+     * B = f(ρ) · I* · 10^(−0.4 k X(Z_moon)) · (1 − 10^(−0.4 k X(Z))), with the Moon's illuminance
+     * I* = 10^(−0.4 (3.84 + 0.026 |α| + 4e-9 α⁴)), the scattering function
+     * f(ρ) = 10^5.36 (1.06 + cos² ρ) + 10^(6.15 − ρ/40) (for ρ ≥ 10°; 6.2e7 ρ^−2 closer in) and the air
+     * mass X(Z) = (1 − 0.96 sin² Z)^−1/2.
      *
      * @param phaseAngleDeg the Moon's phase angle α, degrees (0 full Moon, 180 new)
      * @param moonZenithDistanceDeg zenith distance of the Moon, degrees
@@ -48,7 +51,7 @@ public final class MoonlightSkyBrightness {
 
     /**
      * Nanolamberts to V magnitudes per square arcsecond: V = (20.7233 − ln(B/34.08))/0.92104
-     * (the paper's conversion, its eq. 1 inverted).
+     * (the paper's conversion B = 34.08 exp(20.7233 − 0.92104 V), inverted).
      */
     public static double nanolambertsToVMagPerArcsec2(double nanolamberts) {
         return (20.7233 - Math.log(nanolamberts / 34.08)) / 0.92104;
@@ -61,7 +64,7 @@ public final class MoonlightSkyBrightness {
 
     /**
      * Total V sky brightness at the target: the dark sky at the zenith brightened towards
-     * the horizon as B_zen · 10^(−0.4 k (X − 1)) · X (the paper's eq. 2), plus moonlight
+     * the horizon as B_zen · 10^(−0.4 k (X − 1)) · X (the paper's dark-sky term), plus moonlight
      * ({@link #moonlightNanolamberts}, zero with the Moon below the horizon).
      *
      * @param darkZenithVMag dark-sky brightness at the zenith, V mag/arcsec² (about 21.5 at a
@@ -79,7 +82,7 @@ public final class MoonlightSkyBrightness {
         return nanolambertsToVMagPerArcsec2(dark + moon);
     }
 
-    /** The paper's air mass X(Z) = (1 − 0.96 sin² Z)^−1/2 (its eq. 3). */
+    /** The paper's air mass X(Z) = (1 − 0.96 sin² Z)^−1/2, Z in degrees (valid to Z = 90°). */
     public static double airmassKs(double zenithDistanceDeg) {
         double s = Math.sin(Math.toRadians(zenithDistanceDeg));
         return 1.0 / Math.sqrt(1 - 0.96 * s * s);

@@ -63,7 +63,7 @@ public final class Precession {
 
     /**
      * The IAU 1976 precession matrix (Lieske et al. 1977; Meeus, Astronomical Algorithms,
-     * 2nd ed., formulae 21.3 with the angles from J2000.0).
+     * 2nd ed., ch. 21, rigorous method with the angles ζ, z, θ counted from J2000.0).
      *
      * @param jdTt Julian Date in TT
      */

@@ -16,8 +16,12 @@ public final class LeapSeconds {
     public static final Instant TABLE_START = Instant.parse("1972-01-01T00:00:00Z");
 
     /**
-     * End of the period for which the table is known to hold (no leap second announced
-     * before it). Beyond it {@link TimeScales} models UT1 with ΔT rather than assuming
+     * End of the period for which the table is taken to hold. IERS Bulletin C is published every
+     * six months and announces the next possible leap second; none has been inserted since
+     * 2017-01-01. The latest bulletin known when this was written (No. 70, July 2025, from memory)
+     * excluded one at the end of 2025; 2027-01-01 assumes that the following bulletins announced
+     * none for mid-2026 and the end of 2026 either. Check the latest Bulletin C and move this date,
+     * or add a row, when a new one appears. Beyond it {@link TimeScales} models UT1 with ΔT rather than assuming
      * UT1 = UTC.
      */
     public static final Instant TABLE_VALID_UNTIL = Instant.parse("2027-01-01T00:00:00Z");

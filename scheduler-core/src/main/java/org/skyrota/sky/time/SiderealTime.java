@@ -44,7 +44,8 @@ public final class SiderealTime {
 
     /**
      * Greenwich apparent sidereal time: {@link #gmstRad} plus the equation of the equinoxes
-     * Δψ cos ε + 0.00264″ sin Ω + 0.000063″ sin 2Ω (nutation from {@link Nutation}, that is
+     * Δψ cos ε_A + 0.00264″ sin Ω + 0.000063″ sin 2Ω with the mean obliquity ε_A, as SOFA does
+     * (nutation from {@link Nutation}, that is
      * IAU 1980 as tabulated by Meeus; the two complementary terms are the largest ones of the
      * IAU 2000 equation of the equinoxes).
      *
@@ -55,11 +56,20 @@ public final class SiderealTime {
         return normalize(gmstRad(jdUt1, jdTt) + equationOfEquinoxesRad(jdTt));
     }
 
+    /**
+     * Local apparent sidereal time: {@link #gastRad} plus the east longitude, in [0, 2π).
+     *
+     * @param lonEastRad longitude, positive east
+     */
+    public static double localApparentRad(double jdUt1, double jdTt, double lonEastRad) {
+        return normalize(gastRad(jdUt1, jdTt) + lonEastRad);
+    }
+
     /** The equation of the equinoxes used by {@link #gastRad}, radians. */
     public static double equationOfEquinoxesRad(double jdTt) {
         double t = TimeScales.centuriesTt(jdTt);
         double omega = Math.toRadians(125.04452 + t * (-1934.136261 + t * (0.0020708 + t / 450000.0)));
-        return Nutation.longitudeRad(jdTt) * Math.cos(Obliquity.trueRad(jdTt))
+        return Nutation.longitudeRad(jdTt) * Math.cos(Obliquity.meanRad(jdTt))
                 + (0.00264096 * Math.sin(omega) + 0.00006352 * Math.sin(2 * omega)) * ARCSEC;
     }
 

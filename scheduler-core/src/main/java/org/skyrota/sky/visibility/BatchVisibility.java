@@ -42,9 +42,13 @@ public final class BatchVisibility {
     /** Bound on the Sun's motion among the stars, 0.042°/h (common practice, no source), rounded up. */
     static final double SUN_RATE_DEG_PER_SECOND = 0.05 / 3600;
     private static final double RESOLUTION_SECONDS = 0.25;
+    /** Cell lengths of the separation check once the body is within reach, seconds. */
+    private static final double[] CELL_SECONDS = {3600, 600};
     private static final double HORIZON_STEP_SECONDS = 60;
     private static final double BRIGHTNESS_STEP_SECONDS = 120;
     private static final int CHUNK = 32;
+    private static final double TWO_PI = 2 * Math.PI;
+    private static final double INV_TWO_PI = 1 / TWO_PI;
 
     private BatchVisibility() {
     }
@@ -278,6 +282,17 @@ public final class BatchVisibility {
         private double sinDec;
         private double cosDec;
         private double alpha;
+        private int prevTarget = -1;
+        private int prevNight = -2;
+        private double prevX;
+        private double prevY;
+        private double prevAlpha;
+        private int alphaKey = -1;
+        private int arcTarget = -2;
+        private int arcNight = -2;
+        private double arcSinH = Double.NaN;
+        private double prevCosH;
+        private double prevArc;
 
         Worker(ObservingConstraints c) {
             this.c = c;
@@ -321,8 +336,25 @@ public final class BatchVisibility {
             vy = wy * inv;
             vz = wz * inv;
             sinDec = vz;
-            cosDec = Math.sqrt(vx * vx + vy * vy);
-            alpha = Math.atan2(vy, vx);
+            double rxy2 = vx * vx + vy * vy;
+            cosDec = Math.sqrt(rxy2);
+            // The apparent place moves by well under a milliradian from one night to the next, so
+            // the right ascension follows from last night's by the small-angle difference (error
+            // below 1e-10 rad); atan2 only for a new target or after a gap.
+            if (prevTarget == i && prevNight == sn.nightIndex - 1 && rxy2 > 1e-6) {
+                double cross = prevX * vy - prevY * vx;
+                double dot = prevX * vx + prevY * vy;
+                double d = cross / dot;
+                alpha = prevAlpha + d - d * d * d / 3;
+            } else {
+                alpha = Math.atan2(vy, vx);
+            }
+            prevTarget = i;
+            alphaKey = i;
+            prevNight = sn.nightIndex;
+            prevX = vx;
+            prevY = vy;
+            prevAlpha = alpha;
 
             int n = altitudeIntervals(sc.sinMinTrue, a);
             if (n == 0) {
@@ -337,7 +369,8 @@ public final class BatchVisibility {
                 n = applyHorizon(cur, n);
                 cur = b;
             }
-            if (n > 0 && moonSep && sn.moonUpCount > 0) {
+            if (n > 0 && moonSep && sn.moonUpCount > 0
+                    && vx * sn.moonMeanX + vy * sn.moonMeanY + vz * sn.moonMeanZ > sn.cosMoonClear) {
                 int nx = Intervals.intersect(cur, n, sn.moonUp, sn.moonUpCount, x);
                 int nbad = 0;
                 for (int k = 0; k < nx; k++) {
@@ -396,14 +429,15 @@ public final class BatchVisibility {
             if (cosH >= 1) {
                 return 0;
             }
-            double omega = sn.omegaRadPerSecond;
-            double half = Math.acos(cosH) / omega;
-            double sid = 2 * Math.PI / omega;
+            double inv = sn.secondsPerRad;
+            double half = halfArc(sinH, cosH) * inv;
+            double sid = sn.siderealDaySeconds;
             double hm = sn.lstAtMidRad - alpha;
-            hm -= 2 * Math.PI * Math.rint(hm / (2 * Math.PI));
-            double tk = sn.tm - hm / omega;
-            while (tk - sid + half > sn.t0) {
-                tk -= sid;
+            hm -= TWO_PI * Math.rint(hm * INV_TWO_PI);
+            // The transit nearest the middle, then back to the earliest whose arc reaches the night.
+            double tk = sn.tm - hm * inv;
+            if (tk - sid + half > sn.t0) {
+                tk -= sid * (Math.ceil((tk + half - sn.t0) / sid) - 1);
             }
             int n = 0;
             for (; tk - half < sn.t1; tk += sid) {
@@ -414,6 +448,30 @@ public final class BatchVisibility {
                 }
             }
             return n;
+        }
+
+        /**
+         * acos(cosH). From one night to the next cosH changes by ~1e-6, so the arc follows from
+         * last night's by a second-order Taylor step (third-order error below 2e-9 rad under the
+         * guards), which costs no acos; acos itself otherwise.
+         */
+        private double halfArc(double sinH, double cosH) {
+            double s2 = 1 - prevCosH * prevCosH;
+            double dc = cosH - prevCosH;
+            double arc;
+            if (arcTarget == alphaKey && arcNight == sn.nightIndex - 1 && arcSinH == sinH && s2 > 0.04
+                    && Math.abs(dc) < 1e-4) {
+                double s = Math.sqrt(s2);
+                arc = prevArc - dc / s - prevCosH * dc * dc / (2 * s * s2);
+            } else {
+                arc = Math.acos(cosH);
+            }
+            arcTarget = alphaKey;
+            arcNight = sn.nightIndex;
+            arcSinH = sinH;
+            prevCosH = cosH;
+            prevArc = arc;
+            return arc;
         }
 
         /** Geometric altitude (degrees) of the current target at time t. */
@@ -470,6 +528,11 @@ public final class BatchVisibility {
 
         /** Separation (degrees) between the target and the Moon (moon) or the Sun at time t. */
         private double separationDeg(boolean moon, double t) {
+            return Math.toDegrees(Math.acos(cosSeparation(moon, t)));
+        }
+
+        /** Cosine of the separation between the target and the Moon (moon) or the Sun at time t. */
+        private double cosSeparation(boolean moon, double t) {
             double[] gx = moon ? sn.moonX : sn.sunX;
             double[] gy = moon ? sn.moonY : sn.sunY;
             double[] gz = moon ? sn.moonZ : sn.sunZ;
@@ -487,7 +550,7 @@ public final class BatchVisibility {
             double my = gy[i] + f * (gy[i + 1] - gy[i]);
             double mz = gz[i] + f * (gz[i + 1] - gz[i]);
             double dot = (vx * mx + vy * my + vz * mz) / Math.sqrt(mx * mx + my * my + mz * mz);
-            return Math.toDegrees(Math.acos(Math.max(-1, Math.min(1, dot))));
+            return Math.max(-1, Math.min(1, dot));
         }
 
         /**
@@ -496,25 +559,74 @@ public final class BatchVisibility {
          * throughout is settled without looking inside.
          */
         private int badWhere(boolean moon, double s, double e, int nbad) {
-            double half = 0.5 * (e - s);
-            double mid = s + half;
             double rate = moon ? MOON_RATE_DEG_PER_SECOND : SUN_RATE_DEG_PER_SECOND;
             double limit = moon ? minMoonSepDeg : minSunSepDeg;
-            double g = separationDeg(moon, mid) - limit;
-            if (g - rate * half >= 0) {
+            double half = 0.5 * (e - s);
+            // Separations are compared as cosines (sep ≥ x ⇔ cos sep ≤ cos x on [0°, 180°]).
+            // Most often the body is far from the target: one evaluation settles the interval.
+            if (limit + rate * half < 180 && cosSeparation(moon, s + half) <= Math.cos(Math.toRadians(limit + rate * half))) {
                 return nbad;
             }
-            if (g + rate * half < 0 || half <= RESOLUTION_SECONDS) {
-                if (g < 0 || g + rate * half < 0) {
-                    if (2 * nbad + 2 > bad.length) {
-                        bad = Arrays.copyOf(bad, 2 * bad.length);
-                    }
-                    return Intervals.append(bad, nbad, s, e);
+            // Otherwise hour-long cells, then ten-minute cells, each settled from its two ends
+            // when it can be, and halved down to the resolution where it cannot.
+            return cellPass(moon, s, e, 0, rate, limit, nbad);
+        }
+
+        private int cellPass(boolean moon, double s, double e, int level, double rate, double limit, int nbad) {
+            if (level == CELL_SECONDS.length) {
+                return bisectBad(moon, s, e, rate, limit, Math.cos(Math.toRadians(limit)), nbad);
+            }
+            int cells = Math.max(1, (int) Math.ceil((e - s) / CELL_SECONDS[level]));
+            double cell = (e - s) / cells;
+            double slack = rate * cell;
+            double cosGood = limit + slack < 180 ? Math.cos(Math.toRadians(limit + slack)) : -2;
+            double cosBad = limit - slack > 0 ? Math.cos(Math.toRadians(limit - slack)) : 2;
+            double left = s;
+            double cLeft = cosSeparation(moon, s);
+            for (int k = 1; k <= cells; k++) {
+                double right = k == cells ? e : s + k * cell;
+                double cRight = cosSeparation(moon, right);
+                if (cLeft <= cosGood || cRight <= cosGood) {
+                    // One end is so far that the limit cannot be reached within the cell.
+                    left = right;
+                    cLeft = cRight;
+                    continue;
                 }
+                if (cLeft > cosBad || cRight > cosBad) {
+                    nbad = appendBad(nbad, left, right);
+                } else {
+                    nbad = cellPass(moon, left, right, level + 1, rate, limit, nbad);
+                }
+                left = right;
+                cLeft = cRight;
+            }
+            return nbad;
+        }
+
+        private int appendBad(int nbad, double s, double e) {
+            if (2 * nbad + 2 > bad.length) {
+                bad = Arrays.copyOf(bad, 2 * bad.length);
+            }
+            return Intervals.append(bad, nbad, s, e);
+        }
+
+        /** Recursive halving with the rate bound, down to RESOLUTION_SECONDS. */
+        private int bisectBad(boolean moon, double s, double e, double rate, double limit, double cosLimit, int nbad) {
+            double half = 0.5 * (e - s);
+            double mid = s + half;
+            double cosSep = cosSeparation(moon, mid);
+            double slack = rate * half;
+            if (limit + slack < 180 && cosSep <= Math.cos(Math.toRadians(limit + slack))) {
                 return nbad;
             }
-            nbad = badWhere(moon, s, mid, nbad);
-            return badWhere(moon, mid, e, nbad);
+            if (limit - slack > 0 && cosSep > Math.cos(Math.toRadians(limit - slack))) {
+                return appendBad(nbad, s, e);
+            }
+            if (half <= RESOLUTION_SECONDS) {
+                return cosSep > cosLimit ? appendBad(nbad, s, e) : nbad;
+            }
+            nbad = bisectBad(moon, s, mid, rate, limit, cosLimit, nbad);
+            return bisectBad(moon, mid, e, rate, limit, cosLimit, nbad);
         }
 
         private static final int PREDICATE_HORIZON = 0;

@@ -43,6 +43,13 @@ final class InstantConditions {
         return target[0];
     }
 
+    /** The target's apparent altitude at an instant, degrees. */
+    double altitudeDeg(FixedTarget t, double epochSecond) {
+        double[] out = new double[5];
+        sky.target(t, epochSecond, out);
+        return out[0];
+    }
+
     boolean holds(FixedTarget t, double epochSecond) {
         target[0] = Double.NaN;
         if (epochSecond < earliest || epochSecond > latest) {

@@ -64,17 +64,14 @@ public final class VisibilityCalculator {
             boolean ok = c.holds(target, t);
             double alt = c.lastAltitudeDeg();
             if (ok && !inside) {
-                start = i == 0 ? t : refine(c, target, prevT, t);
-                maxAlt = alt;
-                c.holds(target, start);
-                if (!Double.isNaN(c.lastAltitudeDeg())) {
-                    maxAlt = Math.max(maxAlt, c.lastAltitudeDeg());
-                }
+                start = i == 0 ? t : refine(c, target, prevT, t, true);
+                maxAlt = Math.max(alt, c.altitudeDeg(target, start));
                 inside = true;
             } else if (ok) {
                 maxAlt = Math.max(maxAlt, alt);
             } else if (inside) {
-                double end = refine(c, target, prevT, t);
+                double end = refine(c, target, prevT, t, false);
+                maxAlt = Math.max(maxAlt, c.altitudeDeg(target, end));
                 emit(night, start, end, maxAlt, out);
                 inside = false;
             }
@@ -85,8 +82,11 @@ public final class VisibilityCalculator {
         }
     }
 
-    /** The instant in (a, b] where the conditions change, to within REFINE_SECONDS. */
-    private static double refine(InstantConditions c, FixedTarget target, double a, double b) {
+    /**
+     * The instant in (a, b] where the conditions change, to within REFINE_SECONDS, taken on the
+     * side where they hold (the window's first or last instant).
+     */
+    private static double refine(InstantConditions c, FixedTarget target, double a, double b, boolean opening) {
         boolean atA = c.holds(target, a);
         while (b - a > REFINE_SECONDS) {
             double m = 0.5 * (a + b);
@@ -96,7 +96,7 @@ public final class VisibilityCalculator {
                 b = m;
             }
         }
-        return 0.5 * (a + b);
+        return opening ? b : a;
     }
 
     private static void emit(Night night, double start, double end, double maxAlt, List<VisibilityWindow> out) {

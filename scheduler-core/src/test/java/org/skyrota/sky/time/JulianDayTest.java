@@ -16,7 +16,7 @@ class JulianDayTest {
 
     @ParameterizedTest(name = "{0}-{1}-{2} julian={3} -> {4}")
     @CsvSource({
-        // Meeus, Astronomical Algorithms 2nd ed., Example 7.a: 1957 Oct 4.81 (launch of Sputnik 1)
+        // Meeus, Astronomical Algorithms 2nd ed., Example 7.a: 1957 Oct 4.81
         "1957, 10, 4.81, false, 2436116.31",
         // Meeus ch. 7, list of dates after Example 7.b
         "2000, 1, 1.5, false, 2451545.0",

@@ -11,17 +11,22 @@ import jakarta.validation.constraints.Size;
 
 import org.skyrota.web.system.AuditLog;
 import org.skyrota.web.system.ConflictException;
+import org.skyrota.web.system.FieldProblem;
+import org.skyrota.web.system.InvalidParametersException;
+import org.skyrota.web.system.NotFoundException;
 import org.springframework.data.domain.Sort;
 import org.springframework.http.ResponseEntity;
 import org.springframework.security.crypto.password.PasswordEncoder;
 import org.springframework.transaction.annotation.Transactional;
 import org.springframework.web.bind.annotation.GetMapping;
+import org.springframework.web.bind.annotation.PathVariable;
 import org.springframework.web.bind.annotation.PostMapping;
+import org.springframework.web.bind.annotation.PutMapping;
 import org.springframework.web.bind.annotation.RequestBody;
 import org.springframework.web.bind.annotation.RequestMapping;
 import org.springframework.web.bind.annotation.RestController;
 
-/** Who am I (everyone signed in), and the list and creation of accounts (admins). */
+/** Who am I and my password (everyone signed in); listing, creating and changing accounts (admins). */
 @RestController
 @RequestMapping("/api/accounts")
 class AccountController {
@@ -47,11 +52,55 @@ class AccountController {
             @NotBlank @Size(min = 8, max = 72, message = "must be 8 to 72 characters long") String password,
             @NotNull Role role) {}
 
+    record PasswordChange(@NotBlank String currentPassword,
+                          @NotBlank @Size(min = 8, max = 72, message = "must be 8 to 72 characters long") String newPassword) {}
+
+    /** What an admin may change; absent members stay as they are. */
+    record AccountChange(Role role, Boolean enabled,
+                         @Size(min = 8, max = 72, message = "must be 8 to 72 characters long") String password) {}
+
     @GetMapping("/me")
     AccountView me() {
         CurrentUser user = CurrentUser.get();
         return accounts.findByUsername(user.username()).map(AccountView::of)
                 .orElseGet(() -> new AccountView(user.username(), user.reviewer() ? Role.COORDINATOR : Role.REQUESTER, true));
+    }
+
+    @PutMapping("/me/password")
+    @Transactional
+    ResponseEntity<Void> changeOwnPassword(@Valid @RequestBody PasswordChange change) {
+        Account a = accounts.findByUsername(CurrentUser.get().username())
+                .orElseThrow(() -> new NotFoundException("account", CurrentUser.get().username()));
+        if (!encoder.matches(change.currentPassword(), a.getPasswordHash())) {
+            throw new InvalidParametersException(List.of(new FieldProblem("currentPassword", "is not the current password")));
+        }
+        a.setPasswordHash(encoder.encode(change.newPassword()));
+        audit.record("password", "account", a.getId(), null, null);
+        return ResponseEntity.noContent().build();
+    }
+
+    @PutMapping("/{username}")
+    @Transactional
+    AccountView change(@PathVariable String username, @Valid @RequestBody AccountChange change) {
+        Account a = accounts.findByUsername(username).orElseThrow(() -> new NotFoundException("account", username));
+        AccountView before = AccountView.of(a);
+        boolean losesAdmin = a.getRole() == Role.ADMIN && a.isEnabled()
+                && ((change.role() != null && change.role() != Role.ADMIN) || Boolean.FALSE.equals(change.enabled()));
+        if (losesAdmin && accounts.findAll().stream().filter(x -> x.getRole() == Role.ADMIN && x.isEnabled()).count() <= 1) {
+            throw new ConflictException("This is the last enabled admin; make another admin first");
+        }
+        if (change.role() != null) {
+            a.setRole(change.role());
+        }
+        if (change.enabled() != null) {
+            a.setEnabled(change.enabled());
+        }
+        if (change.password() != null) {
+            a.setPasswordHash(encoder.encode(change.password()));
+        }
+        AccountView after = AccountView.of(accounts.saveAndFlush(a));
+        audit.record(change.password() != null ? "update+password" : "update", "account", a.getId(), before, after);
+        return after;
     }
 
     @GetMapping

@@ -44,7 +44,7 @@ class SecurityConfig {
                         .requestMatchers(HttpMethod.GET, "/api/almanac", "/api/visibility", "/api/about").permitAll()
                         .requestMatchers("/actuator/health", "/actuator/health/**", "/actuator/info").permitAll()
                         .requestMatchers("/v3/api-docs", "/v3/api-docs/**", "/swagger-ui/**", "/swagger-ui.html").permitAll()
-                        .requestMatchers("/api/accounts/me").authenticated()
+                        .requestMatchers("/api/accounts/me", "/api/accounts/me/password").authenticated()
                         .requestMatchers("/api/accounts", "/api/accounts/**").hasRole(REVIEWER_ROLES_ADMIN)
                         .requestMatchers("/api/audit", "/api/audit/**").hasAnyRole(REVIEWER_ROLES_COORDINATOR, REVIEWER_ROLES_ADMIN)
                         .requestMatchers(HttpMethod.GET, REFERENCE_DATA).authenticated()

@@ -9,6 +9,7 @@ import jakarta.validation.ConstraintViolation;
 import jakarta.validation.ConstraintViolationException;
 
 import org.slf4j.Logger;
+import tools.jackson.core.JacksonException;
 import org.slf4j.LoggerFactory;
 import org.springframework.beans.TypeMismatchException;
 import org.springframework.context.MessageSourceResolvable;
@@ -149,6 +150,10 @@ public class ProblemAdvice extends ResponseEntityExceptionHandler {
     @Override
     protected ResponseEntity<Object> handleHttpMessageNotReadable(
             HttpMessageNotReadableException e, HttpHeaders headers, HttpStatusCode status, WebRequest request) {
+        String field = jsonField(e);
+        if (field != null) {
+            return badRequest(e, List.of(new FieldProblem(field, "has a value of the wrong type or form")), request);
+        }
         ProblemDetail body = ProblemDetail.forStatusAndDetail(HttpStatus.BAD_REQUEST,
                 "The request body is missing or is not valid JSON of the expected shape.");
         body.setType(ProblemTypes.INVALID_PARAMETERS);
@@ -198,6 +203,24 @@ public class ProblemAdvice extends ResponseEntityExceptionHandler {
             text.append(text.length() == 0 ? "" : "; ").append(p.field()).append(' ').append(p.message());
         }
         return text.length() == 0 ? "The request is not valid." : text.toString();
+    }
+
+    /** The body field a JSON mapping failure is about ({@code exposures[0].seconds}), or null when there is none. */
+    private static String jsonField(Throwable e) {
+        for (Throwable t = e; t != null; t = t.getCause()) {
+            if (t instanceof JacksonException j && !j.getPath().isEmpty()) {
+                StringBuilder path = new StringBuilder();
+                for (JacksonException.Reference ref : j.getPath()) {
+                    if (ref.getPropertyName() != null) {
+                        path.append(path.length() == 0 ? "" : ".").append(ref.getPropertyName());
+                    } else if (ref.getIndex() >= 0) {
+                        path.append('[').append(ref.getIndex()).append(']');
+                    }
+                }
+                return path.length() == 0 ? null : path.toString();
+            }
+        }
+        return null;
     }
 
     private static String lastNode(String path) {

@@ -7,6 +7,7 @@ import static org.springframework.security.test.web.servlet.request.SecurityMock
 import static org.springframework.security.test.web.servlet.request.SecurityMockMvcRequestPostProcessors.httpBasic;
 import static org.springframework.test.web.servlet.request.MockMvcRequestBuilders.get;
 import static org.springframework.test.web.servlet.request.MockMvcRequestBuilders.post;
+import static org.springframework.test.web.servlet.request.MockMvcRequestBuilders.put;
 import static org.springframework.test.web.servlet.result.MockMvcResultMatchers.content;
 import static org.springframework.test.web.servlet.result.MockMvcResultMatchers.header;
 import static org.springframework.test.web.servlet.result.MockMvcResultMatchers.jsonPath;
@@ -164,6 +165,35 @@ class SecurityTest {
                 .andExpect(content().string(not(containsString("$2"))))
                 .andExpect(content().string(not(containsString("password"))));
         mvc.perform(get("/api/sites").with(httpBasic("dora", "long enough"))).andExpect(status().isOk());
+    }
+
+    @Test
+    void peopleChangeTheirOwnPasswordAndAdminsChangeAccounts() throws Exception {
+        mvc.perform(put("/api/accounts/me/password").with(as("ada")).contentType(MediaType.APPLICATION_JSON)
+                        .content("{\"currentPassword\":\"wrong\",\"newPassword\":\"a new passphrase\"}"))
+                .andExpect(status().isBadRequest()).andExpect(jsonPath("$.parameter").value("currentPassword"));
+        mvc.perform(put("/api/accounts/me/password").with(as("ada")).contentType(MediaType.APPLICATION_JSON)
+                        .content("{\"currentPassword\":\"" + PASSWORD + "\",\"newPassword\":\"a new passphrase\"}"))
+                .andExpect(status().isNoContent());
+        mvc.perform(get("/api/sites").with(as("ada"))).andExpect(status().isUnauthorized());
+        mvc.perform(get("/api/sites").with(httpBasic("ada", "a new passphrase"))).andExpect(status().isOk());
+
+        mvc.perform(put("/api/accounts/ben").with(as("cora")).contentType(MediaType.APPLICATION_JSON).content("{\"enabled\":false}"))
+                .andExpect(status().isForbidden());
+        mvc.perform(put("/api/accounts/ben").with(httpBasic("admin", "first-admin-secret")).contentType(MediaType.APPLICATION_JSON)
+                        .content("{\"enabled\":false}"))
+                .andExpect(status().isOk()).andExpect(jsonPath("$.enabled").value(false));
+        mvc.perform(get("/api/sites").with(as("ben"))).andExpect(status().isUnauthorized());
+        mvc.perform(put("/api/accounts/cora").with(httpBasic("admin", "first-admin-secret")).contentType(MediaType.APPLICATION_JSON)
+                        .content("{\"role\":\"requester\"}"))
+                .andExpect(status().isOk()).andExpect(jsonPath("$.role").value("requester"));
+        mvc.perform(post("/api/sites").with(as("cora")).contentType(MediaType.APPLICATION_JSON)
+                        .content("{\"name\":\"Y\",\"latitudeDeg\":1,\"longitudeDeg\":1,\"elevationM\":1}"))
+                .andExpect(status().isForbidden());
+        // The last enabled admin cannot lock everyone out.
+        mvc.perform(put("/api/accounts/admin").with(httpBasic("admin", "first-admin-secret")).contentType(MediaType.APPLICATION_JSON)
+                        .content("{\"role\":\"coordinator\"}"))
+                .andExpect(status().isConflict());
     }
 
     @Test

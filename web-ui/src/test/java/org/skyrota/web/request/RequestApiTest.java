@@ -134,6 +134,11 @@ class RequestApiTest {
         refused(send(ok.replace("\"repeats\":2", "\"repeats\":0")), "repeats");
         refused(send(ok.replace("2027-02-10", "2027-01-01")), "latestNight");
         refused(send(ok.replace("\"programId\":" + programId, "\"programId\":999999")), "programId");
+        // Values of the wrong JSON type are named too.
+        refused(send(ok.replace("\"priority\":3", "\"priority\":\"high\"")), "priority");
+        refused(send(ok.replace("\"seconds\":45", "\"seconds\":\"long\"")), "exposures[1].seconds");
+        refused(send(ok.replace("\"earliestNight\":\"2027-01-10\"", "\"earliestNight\":\"10 Jan\"")), "earliestNight");
+        refused(send(ok.replace("\"maxMoonIllumination\":0.6", "\"darkness\":\"bright\"")), "darkness");
     }
 
     @Test
