@@ -40,7 +40,9 @@ export async function api(path, { method = 'GET', body, query, signal } = {}) {
   for (const [k, v] of Object.entries(query || {})) {
     if (v !== null && v !== undefined && v !== '') url.searchParams.set(k, v);
   }
-  const headers = { Accept: 'application/json, application/problem+json' };
+  // X-Requested-With marks a script's call, so that a server can answer 401 without the
+  // WWW-Authenticate challenge that would open the browser's own password dialog.
+  const headers = { Accept: 'application/json, application/problem+json', 'X-Requested-With': 'XMLHttpRequest' };
   if (body !== undefined) headers['Content-Type'] = 'application/json';
   if (method !== 'GET' && method !== 'HEAD') {
     const token = await ensureCsrf();
@@ -310,4 +312,15 @@ export function notYet(what) {
  */
 export function loadPlan(kind, from, to, siteId) {
   return apiIfPresent(`/api/plans/${kind}`, { query: { from, to, siteId } });
+}
+
+/** The signed-in person's published visits as an iCalendar feed (proposed endpoint). */
+export const CALENDAR_PATH = '/api/calendar/mine.ics';
+
+/** Whether a GET of `path` answers 2xx (for links to feeds the server may not have yet). */
+export async function exists(path) {
+  try {
+    const r = await fetch(path, { credentials: 'same-origin', headers: { 'X-Requested-With': 'XMLHttpRequest' } });
+    return r.ok;
+  } catch { return false; }
 }

@@ -18,7 +18,8 @@ export async function render(main) {
   clear(main, el('h1', {}, 'Programs'),
     usage ? null : notYet('Planned and observed hours per program'),
     el('section', { class: 'card', 'aria-label': 'Hours per program, as bars' },
-      el('p', { class: 'muted' }, 'Bars: granted (dark), planned (light), observed (amber); hover for the hours.'),
+      el('p', { class: 'muted' }, usage ? 'Bars: granted (dark), planned (light), observed (amber); hover for the hours.'
+        : 'Bars: hours granted; hover for the numbers.'),
       el('div', { class: 'bars', id: 'program-bars' }, rows.map(r => [
         el('span', {}, r.p.code),
         el('div', {}, bar(r.granted, '', 'granted'), usage ? bar(r.planned, 'planned', 'planned') : null, usage ? bar(r.observed, 'observed', 'observed') : null)]))),

@@ -2,7 +2,7 @@
 // each row says when the request is next observable at the chosen site and, when the draft plan
 // leaves it out, the planner's reason.
 import {
-  addDays, all, api, ApiError, clear, el, field, isReviewer, loadPlan, notYet, say, session, siteClock, siteToday, timeEl,
+  addDays, all, api, ApiError, CALENDAR_PATH, clear, el, exists, field, isReviewer, loadPlan, say, session, siteClock, siteToday, timeEl,
 } from '../api.js';
 
 const STATES = ['draft', 'submitted', 'accepted', 'rejected', 'withdrawn'];
@@ -31,7 +31,11 @@ export async function render(main) {
   filters.addEventListener('submit', e => { e.preventDefault(); page = 0; load(); });
   for (const s of [f.programId, f.state, f.priority, f.site]) s.addEventListener('change', () => { page = 0; load(); });
 
-  clear(main, el('h1', {}, 'Queue'), filters, note, table, pager);
+  const calendar = el('p', { id: 'calendar-link' });
+  clear(main, el('h1', {}, 'Queue'), calendar, filters, note, table, pager);
+  exists(CALENDAR_PATH).then(ok => clear(calendar, ok
+    ? el('a', { href: CALENDAR_PATH, download: 'skyrota-visits.ics' }, 'Your published visits as a calendar (iCalendar)')
+    : el('span', { class: 'not-yet' }, 'A calendar feed of your visits: not available yet on this server.')));
 
   async function load() {
     const result = await api('/api/requests', { query: {

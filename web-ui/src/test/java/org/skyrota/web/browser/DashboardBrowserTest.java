@@ -113,12 +113,21 @@ class DashboardBrowserTest {
     void aRequesterSignsIn() {
         open("#/signin");
         if (accounts) {
+            WebElement name = wait.until(ExpectedConditions.visibilityOfElementLocated(By.name("username")));
+            name.sendKeys("student");
+            browser.findElement(By.name("password")).sendKeys("wrong");
+            browser.findElement(By.cssSelector("#signin-form button")).click();
+            wait.until(ExpectedConditions.textToBePresentInElementLocated(By.cssSelector("#signin-form [role=alert]"), "not recognised"));
+            assertThat(browser.findElement(By.id("demo-notice")).isDisplayed()).as("demo-mode notice on the sign-in page").isTrue();
+            shot("01-signin-refused");
             signIn("student");
             wait.until(ExpectedConditions.textToBePresentInElementLocated(By.id("who"), "student"));
+            // a requester is not offered the coordinators' views
+            assertThat(browser.findElement(By.cssSelector("#nav a[href='#/plan']")).isDisplayed()).isFalse();
         } else {
             wait.until(ExpectedConditions.textToBePresentInElementLocated(By.id("view"), "no accounts"));
         }
-        shot("01-signin");
+        shot("01b-signed-in");
     }
 
     @Test
@@ -295,6 +304,66 @@ class DashboardBrowserTest {
         } finally {
             browser.manage().window().setSize(new Dimension(1280, 800));
         }
+    }
+
+    /**
+     * The coordinator's plan work and the requester's view of it. Runs once the server has the plan
+     * endpoints the dashboard was built on (GET /api/plans/draft and the rest, see DASHBOARD.md);
+     * until then it is skipped with that reason.
+     */
+    @Test
+    @Order(10)
+    void theCoordinatorRunsThePlannerPinsAVisitReRunsKeepsThePinAndPublishesThenTheRequesterSeesIt() throws Exception {
+        int draft = get("/api/plans/draft?from=" + LocalDate.now() + "&to=" + LocalDate.now().plusDays(6), basic("coordinator")).statusCode();
+        assumeTrue(draft == 200, "Plan walk-through skipped: the server has no GET /api/plans/draft yet (answered " + draft + ")");
+        open("#/plan");
+        runPlanner("15-planner-run");
+        WebElement visit = visitButton(TARGET);
+        String night = visit.findElement(By.xpath("..")).getDomAttribute("data-night");
+        String slot = visit.getDomAttribute("title");
+        visit.click();
+        wait.until(ExpectedConditions.textToBePresentInElementLocated(By.id("visit-details"), TARGET));
+        browser.findElement(By.xpath("//section[@id='visit-details']//button[text()='Pin']")).click();
+        wait.until(d -> visitButton(TARGET).getText().contains("(pinned)"));
+        shot("16-pinned");
+        runPlanner("17-re-run-pin-kept");
+        WebElement kept = visitButton(TARGET);
+        assertThat(kept.getText()).contains("(pinned)");
+        assertThat(kept.getDomAttribute("title")).isEqualTo(slot);
+        browser.findElement(By.id("publish")).click();
+        wait.until(ExpectedConditions.textToBePresentInElementLocated(By.id("status"), "published"));
+        shot("18-published");
+
+        signOutAndIn("student");
+        open("#/tonight");
+        WebElement date = wait.until(ExpectedConditions.visibilityOfElementLocated(By.name("date")));
+        ((JavascriptExecutor) browser).executeScript(
+                "arguments[0].value = arguments[1]; arguments[0].dispatchEvent(new Event('change'))", date, night);
+        wait.until(d -> d.findElements(By.cssSelector("#timelines .visit")).stream().anyMatch(v -> v.getText().contains(TARGET)));
+        shot("19-requester-sees-published-visit");
+        Object ics = ((JavascriptExecutor) browser).executeAsyncScript(
+                "const d = arguments[0]; fetch('/api/calendar/mine.ics').then(r => r.text()).then(d).catch(e => d('error ' + e))");
+        assertThat(String.valueOf(ics)).contains("BEGIN:VCALENDAR").contains("BEGIN:VEVENT").contains(TARGET);
+        open("#/queue");
+        wait.until(ExpectedConditions.presenceOfElementLocated(By.cssSelector("#calendar-link a")));
+        shot("20-requester-calendar-link");
+    }
+
+    private void runPlanner(String screenshot) {
+        wait.until(ExpectedConditions.elementToBeClickable(By.id("run-start"))).click();
+        WebDriverWait long_ = new WebDriverWait(browser, Duration.ofSeconds(120));
+        long_.until(d -> {
+            Object v = ((JavascriptExecutor) d).executeScript("return document.getElementById('run-progress').value");
+            return v instanceof Number n && n.doubleValue() > 0;
+        });
+        shot(screenshot + "-progress");
+        long_.until(ExpectedConditions.textToBePresentInElementLocated(By.id("run-text"), "Run "));
+        shot(screenshot);
+    }
+
+    private WebElement visitButton(String target) {
+        return wait.until(d -> d.findElements(By.cssSelector("#plan-grid .cell-visit")).stream()
+                .filter(b -> b.getText().contains(target)).findFirst().orElse(null));
     }
 
     // ---- helpers ----
