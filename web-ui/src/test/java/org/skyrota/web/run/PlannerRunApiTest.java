@@ -109,4 +109,164 @@ class PlannerRunApiTest {
             assertThat((String) v.get("night")).isIn(PlanningNetwork.FIRST_NIGHT, PlanningNetwork.LAST_NIGHT);
         });
     }
+
+    Answer draft() {
+        Answer d = api.get("/api/plans/draft", COORD);
+        assertThat(d.status()).isEqualTo(200);
+        return d;
+    }
+
+    @Test
+    void oneRunAtATimePerHorizonAndARunCanBeCancelled() {
+        Answer first = api.post("/api/planner/runs", COORD, "{\"firstNight\":\"2027-01-10\",\"lastNight\":\"2027-01-11\",\"seconds\":20}");
+        assertThat(first.status()).isEqualTo(202);
+        Answer overlapping = api.post("/api/planner/runs", COORD, "{\"firstNight\":\"2027-01-11\",\"lastNight\":\"2027-01-12\",\"seconds\":1}");
+        assertThat(overlapping.status()).isEqualTo(409);
+        assertThat(overlapping.contentType()).startsWith("application/problem+json");
+        Answer cancelled = api.delete("/api/planner/runs/" + first.id("$.id"), COORD);
+        assertThat(cancelled.status()).as(cancelled.body()).isEqualTo(200);
+        assertThat((String) cancelled.json("$.state")).isEqualTo("cancelled");
+        List<Event> events = api.events("/api/planner/runs/" + first.id("$.id") + "/events", COORD, "done", Duration.ofSeconds(30));
+        assertThat((String) JsonPath.read(events.get(events.size() - 1).data(), "$.state")).isEqualTo("cancelled");
+        // Ended runs cannot be cancelled again; bad input is a 400 naming the field.
+        assertThat(api.delete("/api/planner/runs/" + first.id("$.id"), COORD).status()).isEqualTo(409);
+        Answer bad = api.post("/api/planner/runs", COORD, "{\"firstNight\":\"2027-01-10\",\"lastNight\":\"2027-01-11\",\"seconds\":601}");
+        assertThat(bad.status()).isEqualTo(400);
+        assertThat((String) bad.json("$.parameter")).isEqualTo("seconds");
+        Answer badRule = api.post("/api/planner/runs", COORD, "{\"firstNight\":\"2027-01-10\",\"lastNight\":\"2027-01-11\",\"weights\":{\"No such rule\":{\"soft\":1}}}");
+        assertThat(badRule.status()).isEqualTo(400);
+        assertThat(api.get("/api/planner/runs/999999", COORD).status()).isEqualTo(404);
+    }
+
+    @Test
+    void aRunWithWeightsIsAccepted() {
+        Answer started = api.post("/api/planner/runs", COORD, "{\"firstNight\":\"2027-01-10\",\"lastNight\":\"2027-01-11\",\"seconds\":1,"
+                + "\"siteIds\":[" + network.siteId + "],\"weights\":{\"Idle time between visits\":{\"soft\":5}}}");
+        assertThat(started.status()).as(started.body()).isEqualTo(202);
+        List<Event> events = api.events("/api/planner/runs/" + started.id("$.id") + "/events", COORD, "done", Duration.ofSeconds(60));
+        assertThat((String) JsonPath.read(events.get(events.size() - 1).data(), "$.state")).isEqualTo("finished");
+    }
+
+    @Test
+    void aPinnedVisitStaysWhereItWasPinnedAcrossARerun() {
+        runToTheEnd(1);
+        Answer d = draft();
+        Map<String, Object> visit = d.<List<Map<String, Object>>>json("$.visits").get(0);
+        String id = (String) visit.get("id");
+        String newStart = java.time.Instant.parse((String) visit.get("start")).plus(Duration.ofMinutes(20)).toString();
+        Answer moved = api.post("/api/visits/" + id + "/move", COORD, "{\"telescopeId\":" + network.telescopeId
+                + ",\"start\":\"" + newStart + "\"}");
+        assertThat(moved.status()).as(moved.body()).isEqualTo(200);
+        assertThat((Boolean) moved.json("$.dryRun")).isFalse();
+
+        runToTheEnd(1);
+        List<Map<String, Object>> after = draft().json("$.visits[?(@.id == '" + id + "')]");
+        assertThat(after).hasSize(1);
+        assertThat(after.get(0).get("start")).isEqualTo(newStart);
+        assertThat(after.get(0).get("pinned")).isEqualTo(true);
+
+        Answer unpinned = api.post("/api/visits/" + id + "/unpin", COORD, null);
+        assertThat(unpinned.status()).isEqualTo(200);
+        assertThat(draft().<List<Boolean>>json("$.visits[?(@.id == '" + id + "')].pinned")).containsExactly(false);
+    }
+
+    @Test
+    void overridesReportTheirEffectFirstAndAStaleRevisionIsRefused() {
+        runToTheEnd(1);
+        Answer d = draft();
+        long version = d.id("$.version");
+        List<Map<String, Object>> visits = d.json("$.visits");
+        assertThat(visits.size()).isGreaterThanOrEqualTo(2);
+        String id = (String) visits.get(0).get("id");
+
+        Answer dry = api.post("/api/visits/" + id + "/unplace?dryRun=true&version=" + version, COORD, null);
+        assertThat(dry.status()).as(dry.body()).isEqualTo(200);
+        assertThat((Boolean) dry.json("$.dryRun")).isTrue();
+        // Leaving a placed visit out costs its priority-weighted minutes at the medium level (constraints/WEIGHTS.md).
+        assertThat(medium(dry.json("$.scoreAfter"))).isLessThan(medium(dry.json("$.scoreBefore")));
+        assertThat(draft().id("$.version")).isEqualTo(version);
+        assertThat(draft().<List<String>>json("$.visits[*].id")).contains(id);
+
+        // Putting a second visit on top of the first breaks "Telescope overlap" (hard).
+        String other = (String) visits.get(1).get("id");
+        Answer overlap = api.post("/api/visits/" + other + "/move?dryRun=true", COORD, "{\"telescopeId\":" + network.telescopeId
+                + ",\"start\":\"" + visits.get(0).get("start") + "\"}");
+        assertThat(overlap.status()).as(overlap.body()).isEqualTo(200);
+        assertThat(overlap.<List<String>>json("$.hardBroken")).contains("Telescope overlap");
+        assertThat(hard(overlap.json("$.scoreAfter"))).isLessThan(0);
+
+        Answer real = api.post("/api/visits/" + id + "/unplace?version=" + version, COORD, null);
+        assertThat(real.status()).isEqualTo(200);
+        assertThat((String) real.json("$.scoreAfter")).isEqualTo(dry.json("$.scoreAfter"));
+        assertThat(real.id("$.version")).isGreaterThan(version);
+        assertThat(draft().<List<String>>json("$.unplaced[*].visitId")).contains(id);
+
+        Answer stale = api.post("/api/visits/" + other + "/pin?version=" + version, COORD, null);
+        assertThat(stale.status()).isEqualTo(409);
+        assertThat(stale.id("$.currentVersion")).isEqualTo(real.id("$.version"));
+    }
+
+    @Test
+    void closingANightTakesItsVisitsOutAndARerunLeavesItEmpty() {
+        runToTheEnd(1);
+        String night = PlanningNetwork.FIRST_NIGHT;
+        Answer closed = api.put("/api/plans/draft/nights", COORD, "{\"telescopeId\":" + network.telescopeId
+                + ",\"night\":\"" + night + "\",\"state\":\"closed\",\"reason\":\"dome maintenance\"}");
+        assertThat(closed.status()).as(closed.body()).isEqualTo(200);
+        Answer d = draft();
+        assertThat(d.<List<String>>json("$.visits[*].night")).doesNotContain(night);
+        assertThat(d.<List<String>>json("$.closedNights[?(@.night == '" + night + "')].state")).containsExactly("closed");
+        runToTheEnd(1);
+        assertThat(draft().<List<String>>json("$.visits[*].night")).isNotEmpty().doesNotContain(night);
+        Answer opened = api.put("/api/plans/draft/nights", COORD, "{\"telescopeId\":" + network.telescopeId
+                + ",\"night\":\"" + night + "\",\"state\":\"open\"}");
+        assertThat(opened.status()).isEqualTo(200);
+        assertThat(draft().<List<Object>>json("$.closedNights")).isEmpty();
+    }
+
+    @Test
+    void publishingCopiesTheDraftAndCompareShowsLaterChanges() {
+        runToTheEnd(1);
+        Answer d = draft();
+        Answer published = api.post("/api/plans/draft/publish?revision=" + d.id("$.revision"), COORD, null);
+        assertThat(published.status()).as(published.body()).isEqualTo(200);
+        assertThat((String) published.json("$.state")).isEqualTo("published");
+        assertThat(published.<List<String>>json("$.visits[*].id")).containsExactlyInAnyOrderElementsOf(d.json("$.visits[*].id"));
+        Answer again = api.get("/api/plans/published", STUDENT);
+        assertThat(again.status()).isEqualTo(200);
+        assertThat(again.id("$.revision")).isEqualTo(published.id("$.revision"));
+
+        Answer same = api.get("/api/plans/compare", COORD);
+        assertThat(same.<List<Object>>json("$.placed")).isEmpty();
+        assertThat(same.<List<Object>>json("$.moved")).isEmpty();
+        assertThat(same.<List<Object>>json("$.dropped")).isEmpty();
+
+        List<Map<String, Object>> visits = d.json("$.visits");
+        String dropped = (String) visits.get(0).get("id");
+        assertThat(api.post("/api/visits/" + dropped + "/unplace", COORD, null).status()).isEqualTo(200);
+        String moved = (String) visits.get(visits.size() - 1).get("id");
+        String later = java.time.Instant.parse((String) visits.get(visits.size() - 1).get("start")).plus(Duration.ofMinutes(10)).toString();
+        assertThat(api.post("/api/visits/" + moved + "/move", COORD, "{\"telescopeId\":" + network.telescopeId
+                + ",\"start\":\"" + later + "\"}").status()).isEqualTo(200);
+        Answer diff = api.get("/api/plans/compare", COORD);
+        assertThat(diff.<List<String>>json("$.dropped[*].id")).containsExactly(dropped);
+        assertThat(diff.<List<String>>json("$.moved[*].id")).containsExactly(moved);
+        assertThat(diff.<List<String>>json("$.moved[*].start")).containsExactly(later);
+
+        // A run never touches the published plan; a stale revision cannot be published.
+        runToTheEnd(1);
+        assertThat(api.get("/api/plans/published", COORD).<List<String>>json("$.visits[*].id"))
+                .containsExactlyInAnyOrderElementsOf(published.json("$.visits[*].id"));
+        assertThat(api.post("/api/plans/draft/publish?revision=" + d.id("$.revision"), COORD, null).status()).isEqualTo(409);
+        Answer audit = api.get("/api/audit?entityType=plan", COORD);
+        assertThat(audit.<List<String>>json("$.items[*].action")).contains("publish", "override");
+    }
+
+    static long medium(String score) {
+        return Long.parseLong(score.split("/")[1].replace("medium", ""));
+    }
+
+    static long hard(String score) {
+        return Long.parseLong(score.split("/")[0].replace("hard", ""));
+    }
 }
