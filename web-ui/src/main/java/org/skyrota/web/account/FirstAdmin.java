@@ -14,13 +14,12 @@ import org.springframework.stereotype.Component;
 import org.springframework.transaction.annotation.Transactional;
 
 /**
- * Makes sure a fresh installation can be administered: when there is no account at all, and
- * the server is not starting in demo mode (which brings its own accounts), it creates
- * {@code admin} with the password from {@code SKYROTA_ADMIN_PASSWORD}, or with a generated one
- * that is printed once to the log.
+ * Makes sure a fresh installation can be administered: when there is no account at all (after
+ * the demo data, which brings its own, had its turn), it creates {@code admin} with the password
+ * from {@code SKYROTA_ADMIN_PASSWORD}, or with a generated one that is printed once to the log.
  */
 @Component
-@Order(10)
+@Order(20)
 class FirstAdmin implements ApplicationRunner {
 
     private static final Logger log = LoggerFactory.getLogger(FirstAdmin.class);
@@ -39,7 +38,7 @@ class FirstAdmin implements ApplicationRunner {
     @Override
     @Transactional
     public void run(ApplicationArguments args) {
-        if (args.containsOption("demo") || accounts.count() > 0) {
+        if (accounts.count() > 0) {
             return;
         }
         boolean generated = configuredPassword == null || configuredPassword.isBlank();

@@ -13,6 +13,7 @@ import org.springframework.security.config.annotation.web.builders.HttpSecurity;
 import org.springframework.security.crypto.bcrypt.BCryptPasswordEncoder;
 import org.springframework.security.crypto.password.PasswordEncoder;
 import org.springframework.security.web.SecurityFilterChain;
+import org.springframework.security.web.authentication.www.BasicAuthenticationFilter;
 import org.springframework.security.web.csrf.CookieCsrfTokenRepository;
 import org.springframework.security.web.csrf.CsrfTokenRequestAttributeHandler;
 
@@ -47,6 +48,9 @@ class SecurityConfig {
                         .requestMatchers("/api/accounts/me", "/api/accounts/me/password").authenticated()
                         .requestMatchers("/api/accounts", "/api/accounts/**").hasRole(REVIEWER_ROLES_ADMIN)
                         .requestMatchers("/api/audit", "/api/audit/**").hasAnyRole(REVIEWER_ROLES_COORDINATOR, REVIEWER_ROLES_ADMIN)
+                        .requestMatchers("/api/planner/**", "/api/visits/**").hasAnyRole(REVIEWER_ROLES_COORDINATOR, REVIEWER_ROLES_ADMIN)
+                        .requestMatchers(HttpMethod.GET, "/api/plans/**").authenticated()
+                        .requestMatchers("/api/plans/**").hasAnyRole(REVIEWER_ROLES_COORDINATOR, REVIEWER_ROLES_ADMIN)
                         .requestMatchers(HttpMethod.GET, REFERENCE_DATA).authenticated()
                         .requestMatchers(REFERENCE_DATA).hasAnyRole(REVIEWER_ROLES_COORDINATOR, REVIEWER_ROLES_ADMIN)
                         .requestMatchers(HttpMethod.POST, "/api/requests/*/accept", "/api/requests/*/reject")
@@ -62,6 +66,7 @@ class SecurityConfig {
                         .csrfTokenRepository(CookieCsrfTokenRepository.withHttpOnlyFalse())
                         .csrfTokenRequestHandler(plainToken)
                         .ignoringRequestMatchers(SecurityConfig::carriesCredentials))
+                .addFilterAfter(new CsrfCookieFilter(), BasicAuthenticationFilter.class)
                 .exceptionHandling(e -> e
                         .defaultAuthenticationEntryPointFor(SecurityConfig::unauthorized, request -> request.getRequestURI().startsWith("/api/"))
                         .accessDeniedHandler((request, response, denied) -> problem(request, response, 403, "Forbidden",

@@ -42,7 +42,7 @@ import org.springframework.transaction.annotation.Transactional;
  * approximate demo coordinates.
  */
 @Component
-@Order(20)
+@Order(10)
 public class DemoData implements ApplicationRunner {
 
     public static final String PASSWORD = "demo";

@@ -15,6 +15,8 @@ import static org.springframework.test.web.servlet.result.MockMvcResultMatchers.
 
 import com.jayway.jsonpath.JsonPath;
 
+import jakarta.servlet.http.Cookie;
+
 import org.junit.jupiter.api.AfterEach;
 import org.junit.jupiter.api.BeforeEach;
 import org.junit.jupiter.api.Test;
@@ -136,18 +138,40 @@ class SecurityTest {
 
     @Test
     void aBrowserSessionMustSendTheCsrfToken() throws Exception {
+        // As a browser does it, cookies carried by hand: the XSRF-TOKEN cookie comes with any page,
+        // and every change sends its value back (as a form field, or in the X-XSRF-TOKEN header).
         mvc.perform(post("/login").param("username", "ada").param("password", PASSWORD)).andExpect(status().isForbidden());
-        MockHttpSession session = (MockHttpSession) mvc.perform(post("/login").param("username", "ada").param("password", PASSWORD).with(csrf()))
+        Cookie token = mvc.perform(get("/login")).andReturn().getResponse().getCookie("XSRF-TOKEN");
+        assertThat(token).isNotNull();
+        var login = mvc.perform(post("/login").cookie(token).param("username", "ada").param("password", PASSWORD)
+                        .param("_csrf", token.getValue()))
                 .andExpect(status().is3xxRedirection())
-                .andReturn().getRequest().getSession(false);
+                .andReturn();
+        MockHttpSession session = (MockHttpSession) login.getRequest().getSession(false);
         assertThat(session).isNotNull();
+        token = latest(token, login.getResponse().getCookie("XSRF-TOKEN"));
 
-        mvc.perform(get("/api/accounts/me").session(session)).andExpect(jsonPath("$.username").value("ada"));
-        mvc.perform(post("/api/requests").session(session).contentType(MediaType.APPLICATION_JSON).content(request(null)))
+        // Signing in replaces the token (the old cookie is cleared); the next page brings the new one.
+        var me = mvc.perform(token == null ? get("/api/accounts/me").session(session) : get("/api/accounts/me").session(session).cookie(token))
+                .andExpect(jsonPath("$.username").value("ada")).andReturn();
+        token = latest(token, me.getResponse().getCookie("XSRF-TOKEN"));
+        assertThat(token).as("an XSRF-TOKEN cookie after sign-in").isNotNull();
+
+        mvc.perform(post("/api/requests").session(session).cookie(token).contentType(MediaType.APPLICATION_JSON).content(request(null)))
                 .andExpect(status().isForbidden())
                 .andExpect(jsonPath("$.detail").value(containsString("CSRF")));
-        mvc.perform(post("/api/requests").session(session).with(csrf()).contentType(MediaType.APPLICATION_JSON).content(request(null)))
-                .andExpect(status().isCreated());
+        mvc.perform(post("/api/requests").session(session).cookie(token).header("X-XSRF-TOKEN", "not-the-token")
+                        .contentType(MediaType.APPLICATION_JSON).content(request(null)))
+                .andExpect(status().isForbidden());
+        mvc.perform(post("/api/requests").session(session).cookie(token).header("X-XSRF-TOKEN", token.getValue())
+                        .contentType(MediaType.APPLICATION_JSON).content(request(null)))
+                .andExpect(status().isCreated())
+                .andExpect(jsonPath("$.owner").value("ada"));
+    }
+
+    /** The cookie a browser would hold after a response that may have replaced it. */
+    private static Cookie latest(Cookie held, Cookie sent) {
+        return sent == null ? held : sent.getMaxAge() == 0 ? null : sent;
     }
 
     @Test

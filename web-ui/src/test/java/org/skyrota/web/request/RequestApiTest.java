@@ -210,6 +210,11 @@ class RequestApiTest {
         refused(mvc.perform(post("/api/telescopes").contentType(MediaType.APPLICATION_JSON).content("""
                 {"siteId":1,"name":"T1","apertureMm":-4,"minAltitudeDeg":15,"slewRateDegPerS":4,"settleSeconds":10}""")), "apertureMm");
         mvc.perform(get("/api/telescopes/987654")).andExpect(status().isNotFound());
+        // A site with a telescope on it, or a telescope a grant names, cannot be deleted.
+        long siteId = ((Number) JsonPath.read(mvc.perform(get("/api/telescopes/" + telescopeId)).andReturn().getResponse().getContentAsString(), "$.siteId")).longValue();
+        mvc.perform(delete("/api/sites/" + siteId)).andExpect(status().isConflict())
+                .andExpect(content().contentType(MediaType.APPLICATION_PROBLEM_JSON));
+        mvc.perform(delete("/api/telescopes/" + telescopeId)).andExpect(status().isConflict());
         mvc.perform(get("/api/programs?active=true")).andExpect(jsonPath("$.items[0].grants[0].hours").value(40.0));
     }
 

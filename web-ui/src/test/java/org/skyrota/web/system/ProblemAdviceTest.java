@@ -50,6 +50,11 @@ class ProblemAdviceTest {
             return "x".repeat(count);
         }
 
+        @GetMapping("/probe/race")
+        String race() {
+            throw new org.springframework.orm.ObjectOptimisticLockingFailureException("Site", 7L);
+        }
+
         @GetMapping("/probe/fail")
         String fail() {
             throw new IllegalStateException("secret internal detail");
@@ -98,6 +103,12 @@ class ProblemAdviceTest {
         problem(mvc.perform(get("/probe/count")), 400)
                 .andExpect(jsonPath("$.parameter").value("count"))
                 .andExpect(jsonPath("$.errors[0].message").value("is required"));
+    }
+
+    @Test
+    void editThatLostARaceIs409() throws Exception {
+        problem(mvc.perform(get("/probe/race")), 409)
+                .andExpect(jsonPath("$.type").value("urn:skyrota:problem:stale-version"));
     }
 
     @Test

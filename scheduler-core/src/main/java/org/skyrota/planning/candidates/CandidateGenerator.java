@@ -1,0 +1,519 @@
+package org.skyrota.planning.candidates;
+
+import java.time.Duration;
+import java.time.Instant;
+import java.time.LocalDate;
+import java.time.LocalDateTime;
+import java.time.ZoneOffset;
+import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.HashMap;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.concurrent.ConcurrentHashMap;
+import java.util.stream.IntStream;
+
+import org.skyrota.planning.domain.ClosedNight;
+import org.skyrota.planning.domain.Placement;
+import org.skyrota.planning.domain.PlannerWeights;
+import org.skyrota.planning.domain.ProgramGrant;
+import org.skyrota.planning.domain.Schedule;
+import org.skyrota.planning.domain.Visit;
+import org.skyrota.planning.model.Assignment;
+import org.skyrota.planning.model.Closure;
+import org.skyrota.planning.model.Instrument;
+import org.skyrota.planning.model.ObservingLimits;
+import org.skyrota.planning.model.PlanningProblem;
+import org.skyrota.planning.model.Program;
+import org.skyrota.planning.model.Request;
+import org.skyrota.planning.model.Site;
+import org.skyrota.planning.model.Telescope;
+import org.skyrota.planning.sky.SkyConditions;
+import org.skyrota.planning.sky.SkyModel;
+import org.skyrota.planning.sky.SkyWindow;
+
+/**
+ * Turns a {@link PlanningProblem} into a {@link Schedule}: for every visit, every telescope that can take it,
+ * every night of its range that is not closed, and every start on the candidate grid that keeps the whole
+ * visit inside a visibility window. Conditions are sampled once per candidate here so that the score only reads
+ * numbers. Placements are shared per telescope and grid slot.
+ */
+public final class CandidateGenerator {
+    private final SkyModel sky;
+
+    public CandidateGenerator(SkyModel sky) {
+        this.sky = sky;
+    }
+
+    /** Priority weight of the medium rule: the priority itself, 1 (low) to 5 (high). */
+    public static long priorityWeight(int priority) {
+        return priority;
+    }
+
+    public PreparedProblem prepare(PlanningProblem problem, PlannerWeights weights) {
+        List<Site> sites = problem.sites();
+        List<Telescope> telescopes = problem.telescopes();
+        Map<String, Integer> siteIndex = new HashMap<>();
+        for (int i = 0; i < sites.size(); i++) {
+            if (siteIndex.put(sites.get(i).id(), i) != null) {
+                throw new IllegalArgumentException("duplicate site id '" + sites.get(i).id() + "'");
+            }
+        }
+        for (Telescope t : telescopes) {
+            if (!siteIndex.containsKey(t.siteId())) {
+                throw new IllegalArgumentException("telescope " + t.id() + " stands at unknown site '" + t.siteId() + "'");
+            }
+        }
+        Instant epoch = problem.firstNight().minusDays(1).atStartOfDay(ZoneOffset.UTC).toInstant();
+        int grid = problem.gridMinutes();
+        PlacementRegistry registry = new PlacementRegistry(epoch, telescopes, sites, siteIndex);
+
+        double totalGrant = problem.programs().stream().mapToDouble(Program::grantedHours).sum();
+        Map<String, Program> programs = new LinkedHashMap<>();
+        List<ProgramGrant> grants = new ArrayList<>();
+        for (Program p : problem.programs()) {
+            programs.put(p.id(), p);
+            grants.add(new ProgramGrant(p.id(), Math.round(p.grantedHours() * 60),
+                    totalGrant == 0 ? 0 : p.grantedHours() / totalGrant));
+        }
+
+        List<ClosedNight> closedNights = new ArrayList<>();
+        for (Closure c : problem.closures()) {
+            for (int t = 0; t < telescopes.size(); t++) {
+                if (c.covers(telescopes.get(t), c.night())) {
+                    closedNights.add(new ClosedNight(t, (int) c.night().toEpochDay(), c.reason()));
+                }
+            }
+        }
+
+        Map<String, Assignment> forced = new HashMap<>();
+        Map<String, Assignment> pins = new HashMap<>();
+        for (Assignment a : problem.pins()) {
+            pins.put(a.visitId(), a);
+            forced.put(a.visitId(), a);
+        }
+        Map<String, Assignment> published = new HashMap<>();
+        for (Assignment a : problem.published()) {
+            published.put(a.visitId(), a);
+        }
+
+        List<Request> requests = problem.requests();
+        for (Request r : requests) {
+            if (!programs.containsKey(r.programId())) {
+                throw new IllegalArgumentException("request " + r.id() + " belongs to unknown program '" + r.programId() + "'");
+            }
+        }
+        Map<String, VisitStats> stats = new ConcurrentHashMap<>();
+        Map<String, List<List<SkyWindow>>> prefetched = prefetch(problem);
+        List<List<Visit>> perRequest = IntStream.range(0, requests.size()).parallel()
+                .mapToObj(i -> new RequestCandidates(problem, requests.get(i), registry, grid,
+                        programs.get(requests.get(i).programId()), grants, pins, published, stats,
+                        prefetched.get(requests.get(i).id())).build())
+                .toList();
+        List<Visit> visits = new ArrayList<>();
+        Map<String, Request> requestByVisit = new HashMap<>();
+        long candidateCount = 0;
+        for (int i = 0; i < requests.size(); i++) {
+            for (Visit v : perRequest.get(i)) {
+                visits.add(v);
+                requestByVisit.put(v.id(), requests.get(i));
+                candidateCount += v.candidateCount();
+            }
+        }
+        for (String id : forced.keySet()) {
+            if (!requestByVisit.containsKey(id)) {
+                throw new IllegalArgumentException("pin names unknown visit '" + id + "'");
+            }
+        }
+        List<String> telescopeIds = telescopes.stream().map(Telescope::id).toList();
+        Schedule schedule = new Schedule(epoch, grid, telescopeIds, closedNights, grants, visits, weights);
+        return new PreparedProblem(problem, schedule, telescopes, sites, requestByVisit, Map.copyOf(stats),
+                candidateCount, registry.size());
+    }
+
+    /**
+     * Windows of all fixed-target requests at every site over the whole horizon, asked in one batch per distinct set
+     * of limits; by request id, then site index.
+     */
+    private Map<String, List<List<SkyWindow>>> prefetch(PlanningProblem problem) {
+        Map<ObservingLimits, List<Request>> byLimits = new LinkedHashMap<>();
+        for (Request r : problem.requests()) {
+            if (!r.target().solar()) {
+                byLimits.computeIfAbsent(r.limits(), k -> new ArrayList<>()).add(r);
+            }
+        }
+        Map<String, List<List<SkyWindow>>> result = new HashMap<>();
+        for (Map.Entry<ObservingLimits, List<Request>> e : byLimits.entrySet()) {
+            List<Request> group = e.getValue();
+            List<org.skyrota.planning.model.Target> targets = group.stream().map(Request::target).toList();
+            List<List<List<SkyWindow>>> windows = sky.windows(problem.sites(), targets, e.getKey(),
+                    problem.firstNight(), problem.lastNight());
+            for (int t = 0; t < group.size(); t++) {
+                List<List<SkyWindow>> bySite = new ArrayList<>();
+                for (int s = 0; s < problem.sites().size(); s++) {
+                    bySite.add(windows.get(s).get(t));
+                }
+                result.put(group.get(t).id(), bySite);
+            }
+        }
+        return result;
+    }
+
+    /** Shared placements, one per telescope and minute; thread-safe because requests are prepared in parallel. */
+    static final class PlacementRegistry {
+        private final Instant epoch;
+        private final List<Telescope> telescopes;
+        private final List<Site> sites;
+        private final int[] siteOfTelescope;
+        private final ConcurrentHashMap<Long, Placement> byKey = new ConcurrentHashMap<>();
+        private final java.util.concurrent.atomic.AtomicInteger nextId = new java.util.concurrent.atomic.AtomicInteger();
+
+        PlacementRegistry(Instant epoch, List<Telescope> telescopes, List<Site> sites, Map<String, Integer> siteIndex) {
+            this.epoch = epoch;
+            this.telescopes = telescopes;
+            this.sites = sites;
+            this.siteOfTelescope = telescopes.stream().mapToInt(t -> siteIndex.get(t.siteId())).toArray();
+        }
+
+        Placement get(int telescopeIndex, int startMinute) {
+            long key = ((long) telescopeIndex << 32) | (startMinute & 0xffffffffL);
+            return byKey.computeIfAbsent(key, k -> {
+                int site = siteOfTelescope[telescopeIndex];
+                return new Placement(nextId.getAndIncrement(), telescopeIndex, site, startMinute,
+                        (int) nightOf(sites.get(site), instantOf(startMinute)).toEpochDay());
+            });
+        }
+
+        Instant instantOf(int minute) {
+            return epoch.plusSeconds(60L * minute);
+        }
+
+        int minuteOf(Instant instant) {
+            return (int) Math.floorDiv(instant.getEpochSecond() - epoch.getEpochSecond(), 60);
+        }
+
+        int siteOf(int telescopeIndex) {
+            return siteOfTelescope[telescopeIndex];
+        }
+
+        List<Telescope> telescopes() {
+            return telescopes;
+        }
+
+        List<Site> sites() {
+            return sites;
+        }
+
+        int size() {
+            return byKey.size();
+        }
+
+        /** The night (date of the evening, local noon to local noon) an instant belongs to at a site. */
+        static LocalDate nightOf(Site site, Instant instant) {
+            LocalDateTime local = LocalDateTime.ofInstant(instant, site.nightZone());
+            return local.getHour() < 12 ? local.toLocalDate().minusDays(1) : local.toLocalDate();
+        }
+    }
+
+    /** Candidates of the visits of one request. */
+    private final class RequestCandidates {
+        private final PlanningProblem problem;
+        private final Request request;
+        private final PlacementRegistry registry;
+        private final int grid;
+        private final Program program;
+        private final double grantShare;
+        private final Map<String, Assignment> pins;
+        private final Map<String, Assignment> published;
+        private final Map<String, VisitStats> stats;
+        private final Map<Long, SkyConditions> sampled = new HashMap<>();
+        private final Map<String, List<SkyWindow>> windowCache = new HashMap<>();
+
+        RequestCandidates(PlanningProblem problem, Request request, PlacementRegistry registry, int grid, Program program,
+                          List<ProgramGrant> grants, Map<String, Assignment> pins, Map<String, Assignment> published,
+                          Map<String, VisitStats> stats, List<List<SkyWindow>> prefetched) {
+            this.problem = problem;
+            this.request = request;
+            this.registry = registry;
+            this.grid = grid;
+            this.program = program;
+            this.grantShare = grants.stream().filter(g -> g.programId().equals(program.id())).findFirst()
+                    .map(ProgramGrant::grantShare).orElse(0.0);
+            this.pins = pins;
+            this.published = published;
+            this.stats = stats;
+            if (prefetched != null) {
+                for (int s = 0; s < prefetched.size(); s++) {
+                    Site site = registry.sites().get(s);
+                    double minAlt = Math.max(request.limits().minAltitudeDeg(), site.horizonAltitudeDeg());
+                    Map<LocalDate, List<SkyWindow>> byNight = new HashMap<>();
+                    for (SkyWindow w : prefetched.get(s)) {
+                        byNight.computeIfAbsent(w.night(), k -> new ArrayList<>()).add(w);
+                    }
+                    for (LocalDate d = problem.firstNight(); !d.isAfter(problem.lastNight()); d = d.plusDays(1)) {
+                        windowCache.put(site.id() + "|" + minAlt + "|" + d, byNight.getOrDefault(d, List.of()));
+                    }
+                }
+            }
+        }
+
+        List<Visit> build() {
+            List<Telescope> telescopes = registry.telescopes();
+            int n = telescopes.size();
+            int[] length = new int[n];
+            int[] overhead = new int[n];
+            boolean[] eligible = new boolean[n];
+            int nominal = Integer.MAX_VALUE;
+            int eligibleCount = 0;
+            for (int t = 0; t < n; t++) {
+                Instrument best = bestInstrument(telescopes.get(t));
+                double exposure = request.exposureSeconds();
+                Instrument timing = best != null ? best : anyInstrument(telescopes.get(t));
+                double seconds = exposure + telescopes.get(t).slewAndSettleSeconds();
+                if (timing != null) {
+                    seconds += request.exposureCount() * timing.readoutSeconds()
+                            + request.filterChanges() * timing.filterChangeSeconds();
+                }
+                length[t] = roundUp(seconds / 60.0);
+                overhead[t] = Math.max(0, length[t] - (int) Math.round(exposure / 60.0));
+                eligible[t] = best != null;
+                if (eligible[t]) {
+                    eligibleCount++;
+                    nominal = Math.min(nominal, length[t]);
+                }
+            }
+            if (nominal == Integer.MAX_VALUE) {
+                nominal = IntStream.of(length).min().orElse(grid);
+            }
+
+            LocalDate from = max(request.earliestNight(), problem.firstNight());
+            LocalDate to = min(request.latestNight(), problem.lastNight());
+            long gapMinutes = Math.max(0, request.interval().minus(request.tolerance()).toMinutes());
+            long gapDays = gapMinutes / (24 * 60);
+
+            List<Visit> visits = new ArrayList<>();
+            for (int k = 0; k < request.repeats(); k++) {
+                String visitId = request.visitId(k);
+                // Repeat k cannot start before k spacings after the first possible night, nor so late that the
+                // remaining repeats no longer fit: prune those nights (and break the symmetry between repeats).
+                LocalDate visitFrom = from.plusDays(k * gapDays);
+                LocalDate visitTo = to.minusDays((request.repeats() - 1 - k) * gapDays);
+                visits.add(buildVisit(visitId, k, visitFrom, visitTo, length, overhead, eligible, eligibleCount, nominal,
+                        (int) gapMinutes));
+            }
+            return visits;
+        }
+
+        private Visit buildVisit(String visitId, int k, LocalDate from, LocalDate to, int[] length, int[] overhead,
+                                 boolean[] eligible, int eligibleCount, int nominal, int gapMinutes) {
+            List<Telescope> telescopes = registry.telescopes();
+            List<Site> sites = registry.sites();
+            int step = problem.candidateStepMinutes();
+            Map<Placement, int[]> costs = new HashMap<>();
+            int windowNights = 0;
+            int closedWindowNights = 0;
+            long observable = 0;
+            long longest = 0;
+            int nightsConsidered = from.isAfter(to) ? 0 : (int) (to.toEpochDay() - from.toEpochDay() + 1);
+            int rangeNights = Math.max(1, (int) (request.latestNight().toEpochDay() - request.earliestNight().toEpochDay() + 1));
+            for (int s = 0; s < sites.size(); s++) {
+                Site site = sites.get(s);
+                for (LocalDate night = from; !night.isAfter(to); night = night.plusDays(1)) {
+                    boolean nightCounted = false;
+                    List<int[]> nightCandidates = new ArrayList<>();
+                    for (int t = 0; t < telescopes.size(); t++) {
+                        Telescope telescope = telescopes.get(t);
+                        if (!eligible[t] || registry.siteOf(t) != s) {
+                            continue;
+                        }
+                        List<SkyWindow> windows = windows(site, telescope, night);
+                        for (SkyWindow w : windows) {
+                            longest = Math.max(longest, Duration.between(w.start(), w.end()).toMinutes());
+                        }
+                        int needed = length[t];
+                        List<SkyWindow> usable = windows.stream()
+                                .filter(w -> Duration.between(w.start(), w.end()).toMinutes() >= needed)
+                                .toList();
+                        if (usable.isEmpty()) {
+                            continue;
+                        }
+                        if (!nightCounted) {
+                            nightCounted = true;
+                            windowNights++;
+                            observable += usable.stream()
+                                    .mapToLong(w -> Duration.between(w.start(), w.end()).toMinutes()).sum();
+                        }
+                        if (closed(telescope, night)) {
+                            closedWindowNights++;
+                            continue;
+                        }
+                        for (SkyWindow w : usable) {
+                            int first = ceilTo(registry.minuteOf(w.start()) + (w.start().getEpochSecond() % 60 == 0 ? 0 : 1), step);
+                            int lastStart = registry.minuteOf(w.end()) - length[t];
+                            for (int m = first; m <= lastStart; m += step) {
+                                SkyConditions c = conditionsAt(s, site, m + length[t] / 2);
+                                if (!request.target().solar()
+                                        && c.sunSeparationDeg() < request.limits().minSunSeparationDeg()) {
+                                    continue;
+                                }
+                                nightCandidates.add(new int[] {t, m, (int) Math.round(c.airmass() * 1000),
+                                        (int) Math.round(100 * Math.max(0, site.darkSkyZenithVMag() - c.skyBrightnessVMag()))});
+                            }
+                        }
+                    }
+                    int bestAirmass = nightCandidates.stream().mapToInt(c -> c[2]).min().orElse(0);
+                    int nightIndex = (int) (night.toEpochDay() - request.earliestNight().toEpochDay());
+                    int urgency = (int) Math.round(100.0 * nightIndex / rangeNights);
+                    for (int[] c : nightCandidates) {
+                        Placement p = registry.get(c[0], c[1]);
+                        int airmassCost = Math.max(0, (c[2] - bestAirmass) / 10);
+                        costs.put(p, new int[] {airmassCost, c[3], urgency, 0});
+                    }
+                }
+            }
+
+            Assignment pin = pins.get(visitId);
+            Assignment pub = published.get(visitId);
+            Placement pinPlacement = pin == null ? null : forcedPlacement(pin, length, eligible, costs, true);
+            Placement pubPlacement = pub == null ? null : forcedPlacement(pub, length, eligible, costs, false);
+
+            List<Placement> candidates = new ArrayList<>(costs.keySet());
+            candidates.sort(Comparator.comparingInt(Placement::id));
+            int c = candidates.size();
+            int[] airmass = new int[c];
+            int[] skyCost = new int[c];
+            int[] urgency = new int[c];
+            byte[] flags = new byte[c];
+            for (int i = 0; i < c; i++) {
+                int[] v = costs.get(candidates.get(i));
+                airmass[i] = v[0];
+                skyCost[i] = v[1];
+                urgency[i] = v[2];
+                flags[i] = (byte) v[3];
+            }
+            Visit visit = new Visit(visitId, request.id(), k, request.programId(), grantShare, request.priority(),
+                    priorityWeight(request.priority()), nominal, gapMinutes, length, overhead, candidates, airmass,
+                    skyCost, urgency, flags);
+            if (pubPlacement != null || pub != null) {
+                visit.setPublished(pubPlacement != null ? pubPlacement : registry.get(telescopeIndex(pub.telescopeId()),
+                        ceilTo(registry.minuteOf(pub.start()), grid)));
+            }
+            if (pinPlacement != null) {
+                visit.setPlacement(pinPlacement);
+                visit.setPinned(true);
+            }
+            stats.put(visitId, new VisitStats(eligibleCount, nightsConsidered, windowNights, closedWindowNights,
+                    observable, longest, nominal, request.filters()));
+            return visit;
+        }
+
+        /**
+         * The placement of a pin or of the published plan. A pin is always accepted as a candidate, flagged with every
+         * rule it breaks; a published placement only when it breaks nothing (else the visit is free to move).
+         */
+        private Placement forcedPlacement(Assignment a, int[] length, boolean[] eligible, Map<Placement, int[]> costs,
+                                          boolean pin) {
+            int t = telescopeIndex(a.telescopeId());
+            int start = ceilTo(registry.minuteOf(a.start()), grid);
+            Placement p = registry.get(t, start);
+            if (costs.containsKey(p)) {
+                return p;
+            }
+            Telescope telescope = registry.telescopes().get(t);
+            Site site = registry.sites().get(registry.siteOf(t));
+            LocalDate night = PlacementRegistry.nightOf(site, registry.instantOf(start));
+            int flags = 0;
+            if (!eligible[t]) {
+                flags |= Visit.INSTRUMENT_MISSING;
+            }
+            Instant s = registry.instantOf(start);
+            Instant e = registry.instantOf(start + length[t]);
+            boolean inside = windows(site, telescope, night).stream()
+                    .anyMatch(w -> !w.start().isAfter(s) && !w.end().isBefore(e));
+            if (!inside) {
+                flags |= Visit.OUTSIDE_WINDOW;
+            }
+            SkyConditions c = conditionsAt(registry.siteOf(t), site, start + length[t] / 2);
+            if (request.target().solar() ? !solarCertified(telescope)
+                    : c.sunSeparationDeg() < request.limits().minSunSeparationDeg()) {
+                flags |= Visit.SUN_VIOLATION;
+            }
+            if (!pin && (flags != 0 || closed(telescope, night))) {
+                return null;
+            }
+            int sky = (int) Math.round(100 * Math.max(0, site.darkSkyZenithVMag() - c.skyBrightnessVMag()));
+            costs.put(p, new int[] {0, sky, 0, flags});
+            return p;
+        }
+
+        private int telescopeIndex(String id) {
+            List<Telescope> telescopes = registry.telescopes();
+            for (int i = 0; i < telescopes.size(); i++) {
+                if (telescopes.get(i).id().equals(id)) {
+                    return i;
+                }
+            }
+            throw new IllegalArgumentException("assignment names unknown telescope '" + id + "'");
+        }
+
+        private boolean closed(Telescope telescope, LocalDate night) {
+            for (Closure c : problem.closures()) {
+                if (c.covers(telescope, night)) {
+                    return true;
+                }
+            }
+            return false;
+        }
+
+        private List<SkyWindow> windows(Site site, Telescope telescope, LocalDate night) {
+            ObservingLimits l = request.limits();
+            double minAlt = Math.max(l.minAltitudeDeg(), Math.max(site.horizonAltitudeDeg(), telescope.minAltitudeDeg()));
+            ObservingLimits effective = new ObservingLimits(minAlt, l.maxAirmass(), l.darkness(),
+                    l.minMoonSeparationDeg(), l.maxMoonIllumination(), l.minSunSeparationDeg());
+            return windowCache.computeIfAbsent(site.id() + "|" + minAlt + "|" + night,
+                    key -> sky.windows(site, request.target(), effective, night));
+        }
+
+        private SkyConditions conditionsAt(int siteIndex, Site site, int minute) {
+            long key = ((long) siteIndex << 32) | (minute & 0xffffffffL);
+            return sampled.computeIfAbsent(key, k -> sky.conditions(site, request.target(), registry.instantOf(minute)));
+        }
+
+        private Instrument bestInstrument(Telescope telescope) {
+            for (Instrument i : problem.instruments()) {
+                if (i.telescopeId().equals(telescope.id()) && i.filters().containsAll(request.filters())
+                        && (!request.target().solar() || i.certifiedSolarFilter())) {
+                    return i;
+                }
+            }
+            return null;
+        }
+
+        private Instrument anyInstrument(Telescope telescope) {
+            return problem.instruments().stream().filter(i -> i.telescopeId().equals(telescope.id())).findFirst()
+                    .orElse(null);
+        }
+
+        private boolean solarCertified(Telescope telescope) {
+            return problem.instruments().stream()
+                    .anyMatch(i -> i.telescopeId().equals(telescope.id()) && i.certifiedSolarFilter());
+        }
+
+        private int roundUp(double minutes) {
+            return Math.max(grid, (int) Math.ceil(minutes / grid - 1e-9) * grid);
+        }
+    }
+
+    private static int ceilTo(int minute, int step) {
+        return Math.floorDiv(minute + step - 1, step) * step;
+    }
+
+    private static LocalDate max(LocalDate a, LocalDate b) {
+        return a.isAfter(b) ? a : b;
+    }
+
+    private static LocalDate min(LocalDate a, LocalDate b) {
+        return a.isBefore(b) ? a : b;
+    }
+}

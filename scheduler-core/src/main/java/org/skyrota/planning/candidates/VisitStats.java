@@ -1,0 +1,19 @@
+package org.skyrota.planning.candidates;
+
+import java.util.List;
+
+/**
+ * What candidate generation learned about one visit, kept for the left-out reasons.
+ *
+ * @param eligibleTelescopes     telescopes with an instrument for the plan (and a certified solar filter for solar targets)
+ * @param nightsConsidered       nights in the visit's own range within the horizon
+ * @param windowNights           site-nights with at least one visibility window long enough for the visit
+ * @param closedWindowNights     of those, telescope-nights lost to closures
+ * @param observableMinutes      total length of the long-enough windows, summed over sites and nights
+ * @param longestWindowMinutes   the longest single window seen (long enough or not)
+ * @param neededMinutes          the visit's length on its fastest eligible telescope
+ * @param filters                the filters of its plan
+ */
+public record VisitStats(int eligibleTelescopes, int nightsConsidered, int windowNights, int closedWindowNights,
+                         long observableMinutes, long longestWindowMinutes, int neededMinutes, List<String> filters) {
+}

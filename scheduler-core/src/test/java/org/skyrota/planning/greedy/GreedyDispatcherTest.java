@@ -1,0 +1,87 @@
+package org.skyrota.planning.greedy;
+
+import static org.assertj.core.api.Assertions.assertThat;
+
+import java.time.Duration;
+import java.time.LocalDate;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Map;
+import java.util.Set;
+
+import org.junit.jupiter.api.Test;
+import org.skyrota.planning.candidates.CandidateGenerator;
+import org.skyrota.planning.candidates.PreparedProblem;
+import org.skyrota.planning.domain.PlannerWeights;
+import org.skyrota.planning.domain.Visit;
+import org.skyrota.planning.model.ExposureStep;
+import org.skyrota.planning.model.Instrument;
+import org.skyrota.planning.model.MountKind;
+import org.skyrota.planning.model.ObservingLimits;
+import org.skyrota.planning.model.PlanningProblem;
+import org.skyrota.planning.model.Program;
+import org.skyrota.planning.model.Request;
+import org.skyrota.planning.model.Site;
+import org.skyrota.planning.model.Target;
+import org.skyrota.planning.model.Telescope;
+import org.skyrota.planning.sky.SyntheticSky;
+
+/** The greedy dispatch baseline on the synthetic sky (dark 20:00 to 05:00 local, targets up ±3 h). */
+class GreedyDispatcherTest {
+    private static final LocalDate NIGHT = LocalDate.of(2027, 3, 8);
+    private static final Site SITE = Site.of("hill", "Hill Station (invented)", 40, -105, 1600, "America/Denver", 21.5);
+    private static final Telescope SCOPE = new Telescope("hill-a", "hill", 0.4, MountKind.EQUATORIAL, 5, 0, 10, 90);
+
+    @Test
+    void atTheFirstFreeMomentTheHighestPriorityVisitThatFitsStartsAndNothingOverlaps() {
+        List<Request> requests = new ArrayList<>();
+        for (int i = 0; i < 12; i++) {
+            requests.add(request("q" + i, 1 + i % 5, 40, 270));
+        }
+        PreparedProblem prepared = prepare(requests, 100);
+
+        new GreedyDispatcher().dispatch(prepared);
+
+        List<Visit> placed = prepared.schedule().visits().stream().filter(Visit::isPlaced)
+                .sorted((a, b) -> Integer.compare(a.startMinute(), b.startMinute())).toList();
+        assertThat(placed).isNotEmpty();
+        int earliestCandidate = prepared.schedule().visits().stream()
+                .flatMap(v -> v.getCandidates().stream()).mapToInt(p -> p.startMinute()).min().orElseThrow();
+        assertThat(placed.get(0).startMinute()).isEqualTo(earliestCandidate);
+        assertThat(placed.get(0).priority()).isEqualTo(5);
+        for (int i = 1; i < placed.size(); i++) {
+            assertThat(placed.get(i).startMinute()).isGreaterThanOrEqualTo(placed.get(i - 1).endMinute());
+        }
+        // Oversubscribed: 12 visits of 45 min in a 6 h window; the ones left out are the lowest priorities.
+        int lowestPlaced = placed.stream().mapToInt(Visit::priority).min().orElseThrow();
+        assertThat(prepared.schedule().visits().stream().filter(v -> !v.isPlaced()))
+                .isNotEmpty().allSatisfy(v -> assertThat(v.priority()).isLessThanOrEqualTo(lowestPlaced));
+    }
+
+    @Test
+    void aProgramIsNotDispatchedPastItsGrant() {
+        List<Request> requests = List.of(request("a", 5, 40, 260), request("b", 5, 40, 270), request("c", 5, 40, 280));
+        PreparedProblem prepared = prepare(requests, 1.5);
+
+        new GreedyDispatcher().dispatch(prepared);
+
+        long used = prepared.schedule().visits().stream().mapToLong(Visit::placedMinutes).sum();
+        assertThat(used).isLessThanOrEqualTo(90);
+        assertThat(prepared.schedule().visits().stream().filter(Visit::isPlaced)).hasSize(2);
+    }
+
+    private static Request request(String id, int priority, int minutes, double raDeg) {
+        return new Request(id, "lab", "member", Target.fixed("invented field " + id, raDeg, 20),
+                List.of(new ExposureStep("V", 60, minutes)), ObservingLimits.dark(30), NIGHT, NIGHT, 1, null, null,
+                priority);
+    }
+
+    private static PreparedProblem prepare(List<Request> requests, double grantHours) {
+        PlanningProblem problem = new PlanningProblem(List.of(SITE), List.of(SCOPE),
+                List.of(new Instrument("cam", "hill-a", Set.of("V"), 0, 0, false)),
+                List.of(new Program("lab", "Lab (invented)", grantHours, 1)), requests, List.of(), List.of(), List.of(),
+                NIGHT, NIGHT, 5, 5);
+        return new CandidateGenerator(new SyntheticSky(Duration.ofHours(3))).prepare(problem,
+                PlannerWeights.defaults().withOverrides(Map.of()));
+    }
+}
