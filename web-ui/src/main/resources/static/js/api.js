@@ -209,6 +209,21 @@ export function siteToday(clock, plusDays = 0) {
   return new Intl.DateTimeFormat('en-CA', { timeZone: clock.zone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(t);
 }
 
+/** The UTC instant (ISO) of a wall-clock time 'YYYY-MM-DDTHH:MM' read in the site's clock. */
+export function siteWallToUtc(wall, clock) {
+  const guess = Date.parse(wall + ':00Z') - clock.offsetMs;
+  const offset = zoneOffsetMs(clock.zone, new Date(guess));
+  return new Date(guess - offset).toISOString();
+}
+
+/** The offset of an IANA zone from UTC at an instant, from Intl (no library needed). */
+export function zoneOffsetMs(zone, at) {
+  const parts = new Intl.DateTimeFormat('en-US', { timeZone: zone, hourCycle: 'h23', year: 'numeric', month: '2-digit',
+    day: '2-digit', hour: '2-digit', minute: '2-digit', second: '2-digit' }).formatToParts(at);
+  const p = Object.fromEntries(parts.map(x => [x.type, x.value]));
+  return Date.UTC(p.year, p.month - 1, p.day, p.hour, p.minute, p.second) - Math.floor(at.getTime() / 1000) * 1000;
+}
+
 export function addDays(ymd, days) {
   const d = new Date(ymd + 'T12:00:00Z');
   d.setUTCDate(d.getUTCDate() + days);

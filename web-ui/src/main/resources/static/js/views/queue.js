@@ -2,7 +2,7 @@
 // each row says when the request is next observable at the chosen site and, when the draft plan
 // leaves it out, the planner's reason.
 import {
-  addDays, all, api, ApiError, CALENDAR_PATH, clear, el, exists, field, isReviewer, loadPlan, say, session, siteClock, siteToday, timeEl,
+  addDays, all, api, apiIfPresent, ApiError, CALENDAR_PATH, clear, el, exists, field, isReviewer, say, session, siteClock, siteToday, timeEl,
 } from '../api.js';
 
 const STATES = ['draft', 'submitted', 'accepted', 'rejected', 'withdrawn'];
@@ -49,9 +49,7 @@ export async function render(main) {
       note.textContent = 'Filtering by priority is not available yet on this server; showing all priorities.';
     }
     const site = sites.find(s => String(s.id) === f.site.value);
-    const draft = await loadPlan('draft', siteToday(site ? siteClock(site) : siteClock(null)), null).catch(() => null);
-    const reasons = new Map((draft && draft.unplaced || []).map(u => [u.requestId, u.reason]));
-    const rows = items.map(r => row(r, programName, site, draft, reasons, load));
+    const rows = items.map(r => row(r, programName, site, load));
     clear(table, items.length === 0 ? el('p', {}, 'No requests match.') : el('table', { class: 'stack', id: 'queue-table' },
       el('thead', {}, el('tr', {}, ['Target', 'Program', 'Owner', 'Status', 'Priority', 'Nights', 'Next observable', 'Not in the plan because', ''].map(h => el('th', {}, h)))),
       el('tbody', {}, rows)));
@@ -63,14 +61,13 @@ export async function render(main) {
   await load();
 }
 
-function row(r, programName, site, draft, reasons, reload) {
+function row(r, programName, site, reload) {
   const next = el('td', { 'data-label': 'Next observable', class: 'next' }, site ? '…' : 'no site');
   if (site) nextObservable(r, site).then(w => clear(next, w ? timeEl(w.start, siteClock(site), true) : el('span', { class: 'muted' }, `not in the next ${LOOKAHEAD_NIGHTS} nights`)))
     .catch(e => clear(next, el('span', { class: 'error' }, e.message)));
-  let reason;
-  if (!draft) reason = el('span', { class: 'not-yet' }, 'not available yet');
-  else if (reasons.has(r.id)) reason = reasons.get(r.id);
-  else reason = el('span', { class: 'muted' }, r.state === 'accepted' ? 'planned' : '—');
+  const reason = el('td', { 'data-label': 'Not in the plan because', class: 'plan-status' },
+    r.state === 'accepted' ? '…' : el('span', { class: 'muted' }, '—'));
+  if (r.state === 'accepted') planStatus(r).then(text => clear(reason, text)).catch(e => clear(reason, el('span', { class: 'error' }, e.message)));
   return el('tr', { dataset: { id: r.id } },
     el('td', { 'data-label': 'Target', class: 'target' }, r.targetName),
     el('td', { 'data-label': 'Program' }, programName(r.programId)),
@@ -80,8 +77,21 @@ function row(r, programName, site, draft, reasons, reload) {
     el('td', { 'data-label': 'Priority', class: 'num' }, r.priority),
     el('td', { 'data-label': 'Nights' }, `${r.earliestNight || 'any'} – ${r.latestNight || 'any'}, ×${r.repeats}`),
     next,
-    el('td', { 'data-label': 'Not in the plan because' }, reason),
+    reason,
     el('td', { 'data-label': 'Actions' }, actions(r, reload)));
+}
+
+/** Where the latest draft has the request: its placed nights, or the planner's reasons. */
+async function planStatus(r) {
+  const status = await apiIfPresent(`/api/requests/${r.id}/plan-status`);
+  if (!status) return el('span', { class: 'not-yet' }, 'not available yet');
+  if (status.draftRevision == null) return el('span', { class: 'muted' }, 'no draft plan yet');
+  const placed = status.visits.filter(v => v.status === 'placed' || v.status === 'pinned');
+  const observed = status.visits.filter(v => v.status === 'observed');
+  const reasons = [...new Set(status.visits.filter(v => v.status === 'unplaced').map(v => v.reason || 'not placed'))];
+  return [placed.length ? el('div', { class: 'muted' }, `planned: ${placed.map(v => v.night).join(', ')}`) : null,
+    observed.length ? el('div', { class: 'muted' }, `observed: ${observed.length}`) : null,
+    reasons.map(t => el('div', {}, t))];
 }
 
 async function nextObservable(r, site) {

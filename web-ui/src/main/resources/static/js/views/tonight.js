@@ -2,7 +2,7 @@
 // the Moon's altitude, the planned targets), each telescope's plan as a timeline.
 import uPlot from '/webjars/uplot/dist/uPlot.esm.js';
 import {
-  all, api, clear, deg, el, field, loadPlan, localTime, notYet, siteClock, siteToday, timeEl, utcText,
+  all, api, clear, deg, el, field, loadPlan, localTime, notYet, siteClock, zoneOffsetMs, siteToday, timeEl, utcText,
 } from '../api.js';
 import { altitudeDeg, moonAltitudeDeg } from '../sky-sketch.js';
 
@@ -57,7 +57,7 @@ async function showNight(body, site, date) {
       el('tr', {}, el('td', {}, 'Moon illuminated'), el('td', { dataset: { event: 'moonIllumination' } }, `${Math.round(almanac.moonIllumination * 100)} %`))));
 
   // The chart spans sunset to sunrise (or local noon to noon when the Sun does not set or rise).
-  const noon = Date.parse(date + 'T12:00:00Z') - clock.offsetMs - zoneOffsetMs(clock.zone, date);
+  const noon = Date.parse(date + 'T12:00:00Z') - clock.offsetMs - zoneOffsetMs(clock.zone, new Date(date + 'T12:00:00Z'));
   const t0 = almanac.sunset ? Date.parse(almanac.sunset) - 3600e3 : noon;
   const t1 = almanac.sunrise ? Date.parse(almanac.sunrise) + 3600e3 : noon + 86400e3;
   const step = 10 * 60e3;
@@ -98,15 +98,6 @@ async function showNight(body, site, date) {
 }
 
 const PALETTE = ['#1f5f6b', '#c0552b', '#6b4fa0', '#2d6a2d', '#a3261b', '#8a6d00'];
-
-function zoneOffsetMs(zone, date) {
-  // offset of `zone` from UTC at noon of `date`, from Intl (no library needed)
-  const at = new Date(date + 'T12:00:00Z');
-  const parts = new Intl.DateTimeFormat('en-US', { timeZone: zone, hourCycle: 'h23', year: 'numeric', month: '2-digit',
-    day: '2-digit', hour: '2-digit', minute: '2-digit', second: '2-digit' }).formatToParts(at);
-  const p = Object.fromEntries(parts.map(x => [x.type, x.value]));
-  return Date.UTC(p.year, p.month - 1, p.day, p.hour, p.minute, p.second) - at.getTime();
-}
 
 function uniqueTargets(visits) {
   const seen = new Map();
