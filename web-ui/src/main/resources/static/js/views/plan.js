@@ -44,6 +44,10 @@ export async function render(main) {
     ctx.draft = draft;
     showPlan(ctx, draft, comparison, f, n);
     window.__planRenderMs = performance.now() - started;
+    // keep the selected visit's details in step with the new draft
+    const again = ctx.selected && draft.visits.find(v => v.id === ctx.selected);
+    if (again) await showVisit(ctx, again);
+    else if (ctx.selected) clear(details, el('p', { class: 'muted' }, 'The selected visit is no longer placed in this draft.'));
   }
   await load();
 }
@@ -116,6 +120,7 @@ async function change(ctx, path, options, done) {
 
 async function showVisit(ctx, v) {
   const { details, telescopes } = ctx;
+  ctx.selected = v.id;
   const t = telescopes.find(x => x.id === v.telescopeId);
   const site = siteOfTelescope(ctx, t);
   const clock = siteClock(site);
