@@ -51,7 +51,7 @@ export async function render(main) {
     const site = sites.find(s => String(s.id) === f.site.value);
     const rows = items.map(r => row(r, programName, site, load));
     clear(table, items.length === 0 ? el('p', {}, 'No requests match.') : el('table', { class: 'stack', id: 'queue-table' },
-      el('thead', {}, el('tr', {}, ['Target', 'Program', 'Owner', 'Status', 'Priority', 'Nights', 'Next observable', 'Not in the plan because', ''].map(h => el('th', {}, h)))),
+      el('thead', {}, el('tr', {}, ['Target', 'Program', 'Owner', 'Status', 'Priority', 'Nights', 'Next observable', 'Plan (latest draft)', ''].map(h => el('th', {}, h)))),
       el('tbody', {}, rows)));
     clear(pager,
       el('button', { type: 'button', class: 'secondary', disabled: page === 0, onclick: () => { page--; load(); } }, 'Previous'),
@@ -65,7 +65,7 @@ function row(r, programName, site, reload) {
   const next = el('td', { 'data-label': 'Next observable', class: 'next' }, site ? '…' : 'no site');
   if (site) nextObservable(r, site).then(w => clear(next, w ? timeEl(w.start, siteClock(site), true) : el('span', { class: 'muted' }, `not in the next ${LOOKAHEAD_NIGHTS} nights`)))
     .catch(e => clear(next, el('span', { class: 'error' }, e.message)));
-  const reason = el('td', { 'data-label': 'Not in the plan because', class: 'plan-status' },
+  const reason = el('td', { 'data-label': 'Plan (latest draft)', class: 'plan-status' },
     r.state === 'accepted' ? '…' : el('span', { class: 'muted' }, '—'));
   if (r.state === 'accepted') planStatus(r).then(text => clear(reason, text)).catch(e => clear(reason, el('span', { class: 'error' }, e.message)));
   return el('tr', { dataset: { id: r.id } },

@@ -323,6 +323,8 @@ class DashboardBrowserTest {
         assumeTrue(draft == 200, "Plan walk-through skipped: the server has no GET /api/plans/draft yet (answered " + draft + ")");
         open("#/plan");
         runPlanner("15-planner-run");
+        System.out.println("dashboard: plan view reload from the server's draft (fetch and draw, ms, visits) "
+                + ((JavascriptExecutor) browser).executeScript("return window.__planRenderMs + ' ' + document.getElementById('plan-grid-box').dataset.ready"));
         WebElement visit = visitButton(TARGET);
         String night = visit.findElement(By.xpath("..")).getDomAttribute("data-night");
         String telescopeId = visit.findElement(By.xpath("..")).getDomAttribute("data-telescope");
