@@ -32,12 +32,15 @@ import org.springframework.beans.factory.annotation.Autowired;
 import org.springframework.boot.test.context.SpringBootTest;
 import org.springframework.boot.test.web.server.LocalServerPort;
 import org.springframework.security.crypto.password.PasswordEncoder;
+import org.springframework.test.context.TestPropertySource;
 
 /**
  * Telescope tokens and observation reports; the published plan as CSV and iCalendar (read back with Apache Commons
  * CSV and ical4j); a requester's own feed with a feed token.
  */
 @SpringBootTest(webEnvironment = SpringBootTest.WebEnvironment.RANDOM_PORT)
+// A context of its own: runs plan every stored site, so another class's network would share this draft.
+@TestPropertySource(properties = "skyrota.test.context=reports-exports")
 class ReportsAndExportsTest {
 
     static final String ADMIN = ApiClient.basic("repadmin", "password1");

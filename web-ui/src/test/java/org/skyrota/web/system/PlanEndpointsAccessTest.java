@@ -75,6 +75,7 @@ class PlanEndpointsAccessTest {
                 new Row("POST", "/api/visits/" + mine + "-1/unpin?dryRun=true", null, 403, 403, 403, 409, 409),
                 new Row("POST", "/api/visits/" + mine + "-1/unplace?dryRun=true", null, 403, 403, 403, 409, 409),
                 new Row("POST", "/api/visits/" + mine + "-1/move?dryRun=true", "{}", 403, 403, 403, 400, 400),
+                new Row("GET", "/api/visits/" + mine + "-1/candidates", null, 401, 403, 403, 409, 409),
                 new Row("GET", "/api/programs/usage", null, 401, 200, 200, 200, 200),
                 new Row("GET", "/api/requests/" + mine + "/plan-status", null, 401, 200, 404, 200, 200),
                 new Row("GET", "/api/requests/" + mine + "/observability?from=2027-01-10&to=2027-01-11", null, 401, 200, 404, 200, 200),
