@@ -82,6 +82,11 @@ public class ProblemAdvice extends ResponseEntityExceptionHandler {
                 "Someone else changed this at the same moment; read it again and repeat the edit.", request);
     }
 
+    @ExceptionHandler(org.springframework.security.access.AccessDeniedException.class)
+    ResponseEntity<Object> forbidden(org.springframework.security.access.AccessDeniedException e, WebRequest request) {
+        return problem(e, HttpStatus.FORBIDDEN, ProblemTypes.FORBIDDEN, "Forbidden", e.getMessage(), request);
+    }
+
     @ExceptionHandler(ConflictException.class)
     ResponseEntity<Object> conflict(ConflictException e, WebRequest request) {
         return problem(e, HttpStatus.CONFLICT, ProblemTypes.CONFLICT, "Conflict", e.getMessage(), request);

@@ -1,0 +1,99 @@
+package org.skyrota.web.plan;
+
+import java.time.Instant;
+import java.time.LocalDate;
+import java.util.List;
+
+import org.skyrota.web.plan.PlanViews.CompareView;
+import org.skyrota.web.plan.PlanViews.EffectView;
+import org.skyrota.web.plan.PlanViews.PlanStatusView;
+import org.skyrota.web.plan.PlanViews.PlanView;
+import org.skyrota.web.plan.PlanViews.UsageView;
+import org.springframework.web.bind.annotation.GetMapping;
+import org.springframework.web.bind.annotation.PathVariable;
+import org.springframework.web.bind.annotation.PostMapping;
+import org.springframework.web.bind.annotation.PutMapping;
+import org.springframework.web.bind.annotation.RequestBody;
+import org.springframework.web.bind.annotation.RequestParam;
+import org.springframework.web.bind.annotation.RestController;
+
+@RestController
+class PlanController {
+
+    private final PlanService service;
+
+    PlanController(PlanService service) {
+        this.service = service;
+    }
+
+    @GetMapping("/api/plans/draft")
+    PlanView draft(@RequestParam(required = false) LocalDate from, @RequestParam(required = false) LocalDate to,
+                   @RequestParam(required = false) Long siteId) {
+        return service.draft(from, to, siteId);
+    }
+
+    @GetMapping("/api/plans/published")
+    PlanView published(@RequestParam(required = false) LocalDate from, @RequestParam(required = false) LocalDate to,
+                       @RequestParam(required = false) Long siteId) {
+        return service.published(from, to, siteId);
+    }
+
+    @GetMapping("/api/plans/compare")
+    CompareView compare(@RequestParam(required = false) LocalDate from, @RequestParam(required = false) LocalDate to) {
+        return service.compare(from, to);
+    }
+
+    @PostMapping("/api/plans/draft/publish")
+    PlanView publish(@RequestParam long revision) {
+        return service.publish(revision);
+    }
+
+    record NightForm(Long telescopeId, Long siteId, LocalDate night, String state, String reason) {}
+
+    @PutMapping("/api/plans/draft/nights")
+    EffectView nights(@RequestBody NightForm form, @RequestParam(required = false) Long version,
+                      @RequestParam(defaultValue = "false") boolean dryRun) {
+        return service.setNight(form.telescopeId(), form.siteId(), form.night(), form.state(), form.reason(), version, dryRun);
+    }
+
+    record PlaceForm(Long telescopeId, Instant start) {}
+
+    @PostMapping("/api/visits/{id}/pin")
+    EffectView pin(@PathVariable String id, @RequestBody(required = false) PlaceForm form,
+                   @RequestParam(required = false) Long version, @RequestParam(defaultValue = "false") boolean dryRun) {
+        return service.pin(id, form == null ? null : form.telescopeId(), form == null ? null : form.start(), version, dryRun);
+    }
+
+    @PostMapping("/api/visits/{id}/move")
+    EffectView move(@PathVariable String id, @RequestBody PlaceForm form,
+                    @RequestParam(required = false) Long version, @RequestParam(defaultValue = "false") boolean dryRun) {
+        return service.move(id, form.telescopeId(), form.start(), version, dryRun);
+    }
+
+    @PostMapping("/api/visits/{id}/unpin")
+    EffectView unpin(@PathVariable String id, @RequestParam(required = false) Long version,
+                     @RequestParam(defaultValue = "false") boolean dryRun) {
+        return service.unpin(id, version, dryRun);
+    }
+
+    @PostMapping("/api/visits/{id}/unplace")
+    EffectView unplace(@PathVariable String id, @RequestParam(required = false) Long version,
+                       @RequestParam(defaultValue = "false") boolean dryRun) {
+        return service.unplace(id, version, dryRun);
+    }
+
+    @GetMapping("/api/visits/{id}/candidates")
+    List<PlanService.CandidateView> candidates(@PathVariable String id) {
+        return service.candidates(id);
+    }
+
+    @GetMapping("/api/programs/usage")
+    List<UsageView> usage() {
+        return service.usage();
+    }
+
+    @GetMapping("/api/requests/{id}/plan-status")
+    PlanStatusView planStatus(@PathVariable long id) {
+        return service.planStatus(id);
+    }
+}

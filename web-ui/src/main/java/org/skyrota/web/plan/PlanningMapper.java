@@ -1,0 +1,229 @@
+package org.skyrota.web.plan;
+
+import java.time.Duration;
+import java.time.Instant;
+import java.time.LocalDate;
+import java.time.ZoneId;
+import java.util.ArrayList;
+import java.util.HashMap;
+import java.util.HashSet;
+import java.util.List;
+import java.util.Map;
+import java.util.Set;
+import java.util.stream.Collectors;
+
+import org.skyrota.planning.model.Assignment;
+import org.skyrota.planning.model.Closure;
+import org.skyrota.planning.model.DarknessLimit;
+import org.skyrota.planning.model.ExposureStep;
+import org.skyrota.planning.model.MountKind;
+import org.skyrota.planning.model.ObservingLimits;
+import org.skyrota.planning.model.PlanningProblem;
+import org.skyrota.planning.model.Request;
+import org.skyrota.planning.model.Target;
+import org.skyrota.planning.solver.LeftOutVisit;
+import org.skyrota.planning.solver.PlanResult;
+import org.skyrota.planning.solver.PlannedVisit;
+import org.skyrota.web.equipment.Instrument;
+import org.skyrota.web.equipment.Telescope;
+import org.skyrota.web.program.Grant;
+import org.skyrota.web.program.Program;
+import org.skyrota.web.request.ObservingRequest;
+import org.skyrota.web.site.HorizonPoint;
+import org.skyrota.web.site.Site;
+
+/**
+ * The one place where stored sites, equipment, programs and accepted requests become the planner's
+ * {@link PlanningProblem}, and where the planner's visits become stored plan visits again.
+ *
+ * <p>Ids cross as decimal text ({@code "12"}). The planner numbers the visits of a request from its own repeat count,
+ * so the repeats already observed are left out and the rest are renumbered; {@link Mapped} keeps the translation
+ * between the planner's visit ids and the stable {@link VisitKey}s.
+ */
+public final class PlanningMapper {
+
+    private PlanningMapper() {}
+
+    /** Planner time grid and candidate spacing, minutes (the planner's default grid; coarser starts keep runs short). */
+    static final int GRID_MINUTES = PlanningProblem.DEFAULT_GRID_MINUTES;
+    static final int CANDIDATE_STEP_MINUTES = 10;
+
+    /**
+     * What the planner is given.
+     *
+     * @param observedRepeats per request, the repeat numbers already observed (never planned again)
+     * @param pins            visits that must stay where they are (pinned, or on a locked night)
+     * @param nights          locked and closed nights
+     * @param published       the published plan's placed visits, for stability
+     */
+    public record Input(List<Site> sites, List<Telescope> telescopes, List<Instrument> instruments, List<Program> programs,
+                        List<ObservingRequest> requests, Map<Long, Set<Integer>> observedRepeats,
+                        LocalDate firstNight, LocalDate lastNight, List<PlanVisit> pins, List<PlanNight> nights,
+                        List<PlanVisit> published) {}
+
+    /** The problem and the translations back. */
+    public record Mapped(PlanningProblem problem, Map<String, VisitKey> keyByVisitId, Map<Long, ZoneId> zoneByTelescope) {
+
+        /** The planner's visits as stored plan visits. */
+        public List<PlanVisit> visits(PlanResult result) {
+            List<PlanVisit> out = new ArrayList<>();
+            for (PlannedVisit p : result.planned()) {
+                long telescopeId = Long.parseLong(p.telescopeId());
+                out.add(PlanVisit.placed(keyByVisitId.get(p.visitId()), telescopeId,
+                        nightOf(p.start(), zoneByTelescope.get(telescopeId)), p.start(), p.end(), p.pinned()));
+            }
+            for (LeftOutVisit l : result.leftOut()) {
+                out.add(PlanVisit.leftOut(keyByVisitId.get(l.visitId()), l.reason()));
+            }
+            return out;
+        }
+
+        public boolean covers(VisitKey key) {
+            return keyByVisitId.containsValue(key);
+        }
+    }
+
+    /** The site-local date of the evening a visit starting at {@code start} belongs to (nights run noon to noon). */
+    public static LocalDate nightOf(Instant start, ZoneId zone) {
+        return start.atZone(zone).minusHours(12).toLocalDate();
+    }
+
+    public static Mapped map(Input in) {
+        List<org.skyrota.planning.model.Site> sites = in.sites().stream().map(PlanningMapper::site).toList();
+        Map<Long, ZoneId> zones = new HashMap<>();
+        Map<Long, Long> siteByTelescope = new HashMap<>();
+        Set<Long> siteIds = in.sites().stream().map(Site::getId).collect(Collectors.toSet());
+        List<org.skyrota.planning.model.Telescope> telescopes = new ArrayList<>();
+        for (Telescope t : in.telescopes()) {
+            if (!t.isActive() || !siteIds.contains(t.getSite().getId())) {
+                continue;
+            }
+            telescopes.add(telescope(t));
+            zones.put(t.getId(), site(t.getSite()).nightZone());
+            siteByTelescope.put(t.getId(), t.getSite().getId());
+        }
+        List<org.skyrota.planning.model.Instrument> instruments = in.instruments().stream()
+                .filter(i -> zones.containsKey(i.getTelescope().getId()))
+                .map(PlanningMapper::instrument).toList();
+        List<org.skyrota.planning.model.Program> programs = in.programs().stream()
+                .map(p -> program(p, in.firstNight(), in.lastNight(), zones.keySet())).toList();
+        Set<String> programIds = programs.stream().map(org.skyrota.planning.model.Program::id).collect(Collectors.toSet());
+
+        Map<String, VisitKey> keys = new HashMap<>();
+        Map<VisitKey, String> ids = new HashMap<>();
+        List<Request> requests = new ArrayList<>();
+        for (ObservingRequest r : in.requests()) {
+            if (!programIds.contains(String.valueOf(r.getProgram().getId()))) {
+                continue;
+            }
+            Set<Integer> observed = in.observedRepeats().getOrDefault(r.getId(), Set.of());
+            List<Integer> open = new ArrayList<>();
+            for (int n = 1; n <= r.getRepeats(); n++) {
+                if (!observed.contains(n)) {
+                    open.add(n);
+                }
+            }
+            if (open.isEmpty()) {
+                continue;
+            }
+            Request request = request(r, open.size(), in.firstNight(), in.lastNight());
+            requests.add(request);
+            for (int i = 0; i < open.size(); i++) {
+                VisitKey key = new VisitKey(r.getId(), open.get(i));
+                keys.put(request.visitId(i), key);
+                ids.put(key, request.visitId(i));
+            }
+        }
+        List<Assignment> pins = assignments(in.pins(), ids, zones.keySet());
+        List<Assignment> published = assignments(in.published(), ids, zones.keySet());
+        List<Closure> closures = new ArrayList<>();
+        for (PlanNight n : in.nights()) {
+            if (n.getState() == PlanNight.State.CLOSED && zones.containsKey(n.getTelescopeId())) {
+                closures.add(Closure.telescope(String.valueOf(siteByTelescope.get(n.getTelescopeId())),
+                        String.valueOf(n.getTelescopeId()), n.getNight(), n.getReason()));
+            }
+        }
+        PlanningProblem problem = new PlanningProblem(sites, telescopes, instruments, programs, requests, closures,
+                pins, published, in.firstNight(), in.lastNight(), GRID_MINUTES, CANDIDATE_STEP_MINUTES);
+        return new Mapped(problem, Map.copyOf(keys), Map.copyOf(zones));
+    }
+
+    private static List<Assignment> assignments(List<PlanVisit> visits, Map<VisitKey, String> ids, Set<Long> telescopes) {
+        List<Assignment> out = new ArrayList<>();
+        Set<String> seen = new HashSet<>();
+        for (PlanVisit v : visits) {
+            String id = ids.get(v.key());
+            if (v.isPlaced() && id != null && telescopes.contains(v.getTelescopeId()) && seen.add(id)) {
+                out.add(new Assignment(id, String.valueOf(v.getTelescopeId()), v.getStart()));
+            }
+        }
+        return out;
+    }
+
+    static org.skyrota.planning.model.Site site(Site s) {
+        // The planner takes one horizon altitude per site: the median of the stored profile is a fair single number
+        // (the request's own minimum altitude usually lies above it anyway).
+        double horizon = 0;
+        if (!s.getHorizon().isEmpty()) {
+            List<Double> alts = s.getHorizon().stream().map(HorizonPoint::getAltitudeDeg).sorted().toList();
+            horizon = Math.max(-5, Math.min(60, alts.get(alts.size() / 2)));
+        }
+        double darkSky = s.getDarkSkyZenithVMag() == null ? DEFAULT_DARK_SKY_VMAG : s.getDarkSkyZenithVMag();
+        return new org.skyrota.planning.model.Site(String.valueOf(s.getId()), s.getName(), s.getLatitudeDeg(),
+                s.getLongitudeDeg(), s.getElevationM(), s.getTimeZone() == null ? null : ZoneId.of(s.getTimeZone()),
+                horizon, darkSky);
+    }
+
+    /** Zenith sky brightness assumed where a site has none stored: a rural dark site (common practice, no source). */
+    static final double DEFAULT_DARK_SKY_VMAG = 21.5;
+
+    static org.skyrota.planning.model.Telescope telescope(Telescope t) {
+        // The server does not store the mount kind; an equatorial mount tracks through the zenith, so the planner
+        // imposes no upper altitude limit.
+        return new org.skyrota.planning.model.Telescope(String.valueOf(t.getId()), String.valueOf(t.getSite().getId()),
+                t.getApertureMm() / 1000.0, MountKind.EQUATORIAL, t.getSlewRateDegPerS(), t.getSettleSeconds(),
+                t.getMinAltitudeDeg(), 90);
+    }
+
+    static org.skyrota.planning.model.Instrument instrument(Instrument i) {
+        return new org.skyrota.planning.model.Instrument(String.valueOf(i.getId()), String.valueOf(i.getTelescope().getId()),
+                Set.copyOf(i.getFilters()), i.getReadoutSeconds(), i.getFilterChangeSeconds(), i.hasCertifiedSolarFilter());
+    }
+
+    /** The hours of the program's grants on the planned telescopes whose nights overlap the horizon. */
+    static org.skyrota.planning.model.Program program(Program p, LocalDate first, LocalDate last, Set<Long> telescopes) {
+        double hours = 0;
+        for (Grant g : p.getGrants()) {
+            boolean overlaps = (g.getFirstNight() == null || !g.getFirstNight().isAfter(last))
+                    && (g.getLastNight() == null || !g.getLastNight().isBefore(first));
+            if (overlaps && telescopes.contains(g.getTelescopeId())) {
+                hours += g.getHours();
+            }
+        }
+        return new org.skyrota.planning.model.Program(String.valueOf(p.getId()), p.getCode(), hours, 1.0);
+    }
+
+    static Request request(ObservingRequest r, int openRepeats, LocalDate first, LocalDate last) {
+        ObservingLimits limits = ObservingLimits.dark(r.getMinAltitudeDeg())
+                .withDarkness(darkness(r.getDarkness()))
+                .withMoon(r.getMinMoonSeparationDeg() == null ? 0 : r.getMinMoonSeparationDeg(),
+                        r.getMaxMoonIllumination() == null ? 1 : r.getMaxMoonIllumination());
+        List<ExposureStep> steps = r.getExposures().stream()
+                .map(e -> new ExposureStep(e.getFilterName(), e.getSeconds(), e.getCount())).toList();
+        // The server ranks 1 as the highest priority, the planner 5.
+        int plannerPriority = 6 - r.getPriority();
+        return new Request(String.valueOf(r.getId()), String.valueOf(r.getProgram().getId()), r.getOwner(),
+                Target.fixed(r.getTargetName(), r.getRaDeg(), r.getDecDeg()), steps, limits,
+                r.getEarliestNight() == null ? first : r.getEarliestNight(),
+                r.getLatestNight() == null ? last : r.getLatestNight(),
+                openRepeats, Duration.ZERO, Duration.ZERO, plannerPriority);
+    }
+
+    static DarknessLimit darkness(org.skyrota.web.request.DarknessLimit d) {
+        return switch (d) {
+            case ASTRONOMICAL -> DarknessLimit.ASTRONOMICAL;
+            case NAUTICAL -> DarknessLimit.NAUTICAL;
+            case CIVIL -> DarknessLimit.CIVIL;
+        };
+    }
+}

@@ -1,0 +1,17 @@
+package org.skyrota.web.run;
+
+import java.time.LocalDate;
+import java.util.List;
+import java.util.Map;
+
+/**
+ * What a run is asked to do.
+ *
+ * @param seconds time limit, 1..600 (default 30)
+ * @param weights rule name to {@code {hard, medium, soft}}, replacing the rule's default weight for this run
+ */
+public record RunForm(LocalDate firstNight, LocalDate lastNight, List<Long> siteIds, Integer seconds,
+                      Map<String, Weight> weights) {
+
+    public record Weight(Long hard, Long medium, Long soft) {}
+}

@@ -1,0 +1,342 @@
+package org.skyrota.web.run;
+
+import java.time.Duration;
+import java.time.Instant;
+import java.time.LocalDate;
+import java.time.temporal.ChronoUnit;
+import java.util.ArrayList;
+import java.util.HashMap;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Set;
+import java.util.concurrent.ConcurrentHashMap;
+import java.util.concurrent.ExecutorService;
+import java.util.concurrent.Executors;
+import java.util.concurrent.Future;
+import java.util.concurrent.atomic.AtomicInteger;
+import java.util.stream.Collectors;
+
+import jakarta.annotation.PreDestroy;
+
+import org.optaplanner.core.api.score.buildin.hardmediumsoftlong.HardMediumSoftLongScore;
+import org.skyrota.planning.domain.RuleNames;
+import org.skyrota.planning.solver.PlanResult;
+import org.skyrota.planning.solver.Planner;
+import org.skyrota.planning.solver.Progress;
+import org.skyrota.planning.solver.SolveOptions;
+import org.skyrota.web.account.CurrentUser;
+import org.skyrota.web.plan.PlanInputs;
+import org.skyrota.web.plan.PlanNight;
+import org.skyrota.web.plan.PlanRevision;
+import org.skyrota.web.plan.PlanRevisionRepository;
+import org.skyrota.web.plan.PlanVisit;
+import org.skyrota.web.plan.PlanningMapper;
+import org.skyrota.web.plan.VisitKey;
+import org.skyrota.web.system.AuditLog;
+import org.skyrota.web.system.ConflictException;
+import org.skyrota.web.system.FieldProblem;
+import org.skyrota.web.system.InvalidParametersException;
+import org.skyrota.web.system.NotFoundException;
+import org.slf4j.Logger;
+import org.slf4j.LoggerFactory;
+import org.springframework.stereotype.Service;
+import org.springframework.transaction.PlatformTransactionManager;
+import org.springframework.transaction.support.TransactionTemplate;
+import org.springframework.web.servlet.mvc.method.annotation.SseEmitter;
+
+import tools.jackson.databind.json.JsonMapper;
+
+/**
+ * Planner runs: started on a worker thread, solved by the facade (which runs OptaPlanner's {@code SolverManager}),
+ * followed by server-sent events, ended by writing a new draft revision in one transaction. A run's state is
+ * stored before and after the solve, so its status is always readable before its solution; a run interrupted by a
+ * stop is failed at the next start ({@link RunRecovery}).
+ */
+@Service
+public class RunService {
+
+    private static final Logger log = LoggerFactory.getLogger(RunService.class);
+
+    static final int MAX_SECONDS = 600;
+    static final int DEFAULT_SECONDS = 30;
+    static final int MAX_NIGHTS = 62;
+
+    private final PlannerRunRepository runs;
+    private final PlanRevisionRepository revisions;
+    private final PlanInputs inputs;
+    private final Planner planner;
+    private final RunEvents events;
+    private final AuditLog audit;
+    private final JsonMapper json;
+    private final TransactionTemplate tx;
+    private final ExecutorService workers;
+    private final Map<Long, Future<?>> futures = new ConcurrentHashMap<>();
+    private final Set<Long> cancelling = ConcurrentHashMap.newKeySet();
+
+    RunService(PlannerRunRepository runs, PlanRevisionRepository revisions, PlanInputs inputs, Planner planner,
+               RunEvents events, AuditLog audit, JsonMapper json, PlatformTransactionManager transactions) {
+        this.runs = runs;
+        this.revisions = revisions;
+        this.inputs = inputs;
+        this.planner = planner;
+        this.events = events;
+        this.audit = audit;
+        this.json = json;
+        this.tx = new TransactionTemplate(transactions);
+        AtomicInteger n = new AtomicInteger();
+        this.workers = Executors.newFixedThreadPool(2, r -> {
+            Thread t = new Thread(r, "planner-run-" + n.incrementAndGet());
+            t.setDaemon(true);
+            return t;
+        });
+    }
+
+    @PreDestroy
+    void stop() {
+        workers.shutdownNow();
+    }
+
+    /** Queues a run; refused with 409 while another queued or running run covers any of its nights. */
+    public synchronized RunView start(RunForm form) {
+        List<FieldProblem> problems = new ArrayList<>();
+        if (form.firstNight() == null) {
+            problems.add(new FieldProblem("firstNight", "must be given"));
+        }
+        if (form.lastNight() == null) {
+            problems.add(new FieldProblem("lastNight", "must be given"));
+        }
+        if (form.firstNight() != null && form.lastNight() != null) {
+            long nights = ChronoUnit.DAYS.between(form.firstNight(), form.lastNight()) + 1;
+            if (nights < 1) {
+                problems.add(new FieldProblem("lastNight", "must not be before firstNight"));
+            } else if (nights > MAX_NIGHTS) {
+                problems.add(new FieldProblem("lastNight", "at most " + MAX_NIGHTS + " nights per run"));
+            }
+        }
+        int seconds = form.seconds() == null ? DEFAULT_SECONDS : form.seconds();
+        if (seconds < 1 || seconds > MAX_SECONDS) {
+            problems.add(new FieldProblem("seconds", "must be 1.." + MAX_SECONDS));
+        }
+        Map<String, HardMediumSoftLongScore> weights = weights(form, problems);
+        if (!problems.isEmpty()) {
+            throw new InvalidParametersException(problems);
+        }
+        String sites = form.siteIds() == null || form.siteIds().isEmpty() ? null
+                : form.siteIds().stream().map(String::valueOf).collect(Collectors.joining(","));
+        String user = CurrentUser.get().username();
+        PlannerRun run = tx.execute(status -> {
+            for (PlannerRun other : runs.findByStateIn(List.of(RunState.QUEUED, RunState.RUNNING))) {
+                if (other.overlaps(form.firstNight(), form.lastNight())) {
+                    throw new ConflictException("Run " + other.getId() + " (" + other.getFirstNight() + " to "
+                            + other.getLastNight() + ") is still " + other.getState().apiName()
+                            + " over some of these nights; wait for it or cancel it");
+                }
+            }
+            PlannerRun saved = runs.save(new PlannerRun(form.firstNight(), form.lastNight(), sites, seconds,
+                    weights.isEmpty() ? null : json.writeValueAsString(form.weights()), user));
+            audit.record("create", "planner-run", saved.getId(), null, RunView.of(saved));
+            return saved;
+        });
+        long id = run.getId();
+        futures.put(id, workers.submit(() -> execute(id, weights)));
+        return RunView.of(run);
+    }
+
+    private static Map<String, HardMediumSoftLongScore> weights(RunForm form, List<FieldProblem> problems) {
+        Map<String, HardMediumSoftLongScore> out = new LinkedHashMap<>();
+        if (form.weights() == null) {
+            return out;
+        }
+        form.weights().forEach((rule, w) -> {
+            if (!RuleNames.ALL.contains(rule)) {
+                problems.add(new FieldProblem("weights." + rule, "no such rule; the rules are " + RuleNames.ALL));
+            } else if (w == null) {
+                problems.add(new FieldProblem("weights." + rule, "must be {hard, medium, soft}"));
+            } else {
+                out.put(rule, HardMediumSoftLongScore.of(w.hard() == null ? 0 : w.hard(),
+                        w.medium() == null ? 0 : w.medium(), w.soft() == null ? 0 : w.soft()));
+            }
+        });
+        return out;
+    }
+
+    public RunView get(long id) {
+        return RunView.of(find(id));
+    }
+
+    private PlannerRun find(long id) {
+        return runs.findById(id).orElseThrow(() -> new NotFoundException("planner run", id));
+    }
+
+    public SseEmitter events(long id) {
+        PlannerRun run = find(id);
+        return events.subscribe(id, run.getTimeLimitSeconds(), run.getState().isActive() ? null : doneData(run));
+    }
+
+    /** Cancels a queued or running run and waits a little for it to stop; an ended run cannot be cancelled (409). */
+    public RunView cancel(long id) {
+        PlannerRun run = find(id);
+        if (!run.getState().isActive()) {
+            throw new ConflictException("Run " + id + " has already ended (" + run.getState().apiName() + ")");
+        }
+        cancelling.add(id);
+        Future<?> future = futures.get(id);
+        if (future != null) {
+            future.cancel(true);
+        }
+        if (future == null || future.isCancelled()) {
+            // It may never have started (or its worker is gone): end it here unless the worker already did.
+            endIfActive(id, RunState.CANCELLED, null, "cancelled by " + CurrentUser.get().username());
+        }
+        long until = System.nanoTime() + Duration.ofSeconds(10).toNanos();
+        while (find(id).getState().isActive() && System.nanoTime() < until) {
+            try {
+                Thread.sleep(50);
+            } catch (InterruptedException e) {
+                Thread.currentThread().interrupt();
+                break;
+            }
+        }
+        return get(id);
+    }
+
+    private void execute(long id, Map<String, HardMediumSoftLongScore> weights) {
+        try {
+            PlannerRun run = tx.execute(status -> {
+                PlannerRun r = find(id);
+                if (r.getState() != RunState.QUEUED) {
+                    return null;
+                }
+                r.start(Instant.now());
+                return r;
+            });
+            if (run == null) {
+                return;
+            }
+            Set<Long> siteIds = run.getSiteIds() == null ? null : java.util.Arrays.stream(run.getSiteIds().split(","))
+                    .map(Long::valueOf).collect(Collectors.toSet());
+            LocalDate first = run.getFirstNight();
+            LocalDate last = run.getLastNight();
+            PlanningMapper.Mapped mapped = tx.execute(status -> {
+                PlanRevision draft = revisions.findFirstByStateOrderByIdDesc(PlanRevision.State.DRAFT).orElse(null);
+                List<PlanVisit> pins = new ArrayList<>();
+                List<PlanNight> nights = new ArrayList<>();
+                if (draft != null) {
+                    nights.addAll(draft.getNights());
+                    for (PlanVisit v : draft.getVisits()) {
+                        if (v.isPlaced() && !v.getNight().isBefore(first) && !v.getNight().isAfter(last)
+                                && (v.isPinned() || lockedNight(draft, v))) {
+                            pins.add(v);
+                        }
+                    }
+                }
+                return inputs.problem(first, last, siteIds, pins, nights);
+            });
+            SolveOptions options = SolveOptions.of(Duration.ofSeconds(run.getTimeLimitSeconds())).withWeights(weights);
+            long limitNanos = Duration.ofSeconds(run.getTimeLimitSeconds()).toNanos();
+            PlanResult result = planner.solve(mapped.problem(), options, p -> events.progress(id, progressData(p, limitNanos)));
+            if (cancelling.contains(id) || Thread.currentThread().isInterrupted()) {
+                endIfActive(id, RunState.CANCELLED, result.score().toString(), "cancelled");
+                return;
+            }
+            tx.executeWithoutResult(status -> writeDraft(id, mapped, result, first, last));
+            events.done(id, doneData(find(id)));
+        } catch (RuntimeException | Error e) {
+            boolean cancelled = cancelling.contains(id);
+            if (!cancelled) {
+                log.warn("Planner run {} failed", id, e);
+            }
+            String why = e.getMessage() == null ? e.getClass().getSimpleName() : e.getMessage();
+            endIfActive(id, cancelled ? RunState.CANCELLED : RunState.FAILED, null,
+                    cancelled ? "cancelled" : "The planner failed: " + why);
+        } finally {
+            futures.remove(id);
+            cancelling.remove(id);
+        }
+    }
+
+    private static boolean lockedNight(PlanRevision draft, PlanVisit v) {
+        return draft.getNights().stream().anyMatch(n -> n.getState() == PlanNight.State.LOCKED
+                && n.is(v.getTelescopeId(), v.getNight()));
+    }
+
+    /**
+     * The new draft: the run's visits, plus the old draft's placements the run did not cover (other nights, other
+     * sites, or kept by a pin); the old draft is retired. The published plan is not touched.
+     */
+    private void writeDraft(long id, PlanningMapper.Mapped mapped, PlanResult result, LocalDate first, LocalDate last) {
+        PlannerRun run = find(id);
+        PlanRevision old = revisions.findFirstByStateOrderByIdDesc(PlanRevision.State.DRAFT).orElse(null);
+        Map<VisitKey, PlanVisit> visits = new LinkedHashMap<>();
+        for (PlanVisit v : mapped.visits(result)) {
+            visits.put(v.key(), v);
+        }
+        PlanRevision draft = new PlanRevision(PlanRevision.State.DRAFT, first, last);
+        if (old != null) {
+            Set<String> planned = mapped.problem().telescopes().stream().map(t -> t.id()).collect(Collectors.toSet());
+            Map<VisitKey, PlanVisit> keep = new HashMap<>();
+            for (PlanVisit v : old.getVisits()) {
+                boolean outside = v.isPlaced() && (v.getNight().isBefore(first) || v.getNight().isAfter(last)
+                        || !planned.contains(String.valueOf(v.getTelescopeId())));
+                PlanVisit now = visits.get(v.key());
+                boolean runLeftItOut = now == null || !now.isPlaced();
+                if (outside && (runLeftItOut || v.isPinned() || lockedNight(old, v))) {
+                    keep.put(v.key(), v.copy());
+                }
+            }
+            visits.putAll(keep);
+            old.getNights().forEach(n -> draft.getNights().add(n.copy()));
+            draft.widenTo(old.getFirstNight(), old.getLastNight());
+            old.setState(PlanRevision.State.RETIRED);
+        }
+        draft.getVisits().addAll(visits.values());
+        draft.setScore(result.score().toString());
+        draft.setRunId(id);
+        revisions.saveAndFlush(draft);
+        long placed = result.planned().size();
+        run.end(RunState.FINISHED, Instant.now(), result.score().toString(),
+                "placed " + placed + " of " + (placed + result.leftOut().size()) + " visits"
+                        + (result.hardViolations().isEmpty() ? "" : "; hard rules broken: " + result.hardViolations().size()));
+        run.setRevisionId(draft.getId());
+    }
+
+    private void endIfActive(long id, RunState how, String score, String message) {
+        tx.executeWithoutResult(status -> {
+            PlannerRun r = find(id);
+            if (r.getState().isActive()) {
+                r.end(how, Instant.now(), score, message);
+            }
+        });
+        events.done(id, doneData(find(id)));
+    }
+
+    private String progressData(Progress p, long limitNanos) {
+        Map<String, Object> m = new LinkedHashMap<>();
+        m.put("fraction", Math.min(1.0, Math.round(p.elapsed().toNanos() * 1000.0 / limitNanos) / 1000.0));
+        m.put("score", p.bestScore() == null ? null : p.bestScore().toString());
+        m.put("elapsedSeconds", Math.round(p.elapsed().toMillis() / 100.0) / 10.0);
+        m.put("placedVisits", p.placedVisits());
+        return json.writeValueAsString(m);
+    }
+
+    private String doneData(PlannerRun run) {
+        Map<String, Object> m = new LinkedHashMap<>();
+        m.put("state", run.getState().apiName());
+        m.put("score", run.getBestScore());
+        m.put("message", run.getMessage());
+        m.put("revision", run.getRevisionId());
+        return json.writeValueAsString(m);
+    }
+
+    /** Fails every run that was queued or running when the server stopped; called once at start. */
+    int failInterrupted() {
+        Integer n = tx.execute(status -> {
+            List<PlannerRun> stale = runs.findByStateIn(List.of(RunState.QUEUED, RunState.RUNNING));
+            stale.forEach(r -> r.end(RunState.FAILED, Instant.now(), null,
+                    "The server stopped while this run was " + r.getState().apiName() + "; start it again"));
+            return stale.size();
+        });
+        return n == null ? 0 : n;
+    }
+}
