@@ -12,12 +12,36 @@ import org.skyrota.planning.domain.ProgramGrant;
 import org.skyrota.planning.domain.Visit;
 
 /**
- * The baseline: scheduling by hand the way a club does it. Each telescope walks through its nights; at every free
- * moment on the grid it starts the highest-priority visit that can start right now (ties: the one whose range
- * closes first, then the longest), provided its program still has time and its repeats stay far enough apart.
- * Pinned visits are placed first and are never moved. Works in place on the prepared schedule.
+ * Greedy dispatch: each telescope walks through its nights; at every free moment on the grid it starts the
+ * highest-priority visit that can start right now, provided its program still has time and its repeats stay far
+ * enough apart. Pinned visits are placed first and are never moved. Works in place on the prepared schedule.
+ *
+ * <p>Two ways to break ties between visits of equal priority: {@link #byHand()}, the baseline, takes them in queue
+ * order, the way a club schedules by hand; {@link #urgencyAware()} takes the one whose range closes first, then the
+ * longest, which is a better start for the solver's search.
  */
 public final class GreedyDispatcher {
+
+    private final boolean urgencyAware;
+
+    /** The baseline of the benchmarks: equal priorities in queue order. */
+    public GreedyDispatcher() {
+        this(false);
+    }
+
+    private GreedyDispatcher(boolean urgencyAware) {
+        this.urgencyAware = urgencyAware;
+    }
+
+    /** The club's way by hand: highest priority first, equal priorities in queue order. */
+    public static GreedyDispatcher byHand() {
+        return new GreedyDispatcher(false);
+    }
+
+    /** Highest priority first, then the request whose range closes first, then the longest visit. */
+    public static GreedyDispatcher urgencyAware() {
+        return new GreedyDispatcher(true);
+    }
 
     public void dispatch(PreparedProblem prepared) {
         List<Visit> visits = prepared.schedule().visits();
@@ -30,6 +54,10 @@ public final class GreedyDispatcher {
         Map<String, Long> grants = new HashMap<>();
         for (ProgramGrant g : prepared.schedule().grants()) {
             grants.put(g.programId(), g.grantMinutes());
+        }
+        Map<String, Integer> queueOrder = new HashMap<>();
+        for (int i = 0; i < visits.size(); i++) {
+            queueOrder.put(visits.get(i).id(), i);
         }
         List<int[]> pinnedIntervals = new ArrayList<>();
         for (Visit v : visits) {
@@ -71,7 +99,7 @@ public final class GreedyDispatcher {
                 if (!fits(v, t, minute, end, pinnedIntervals, programUsed, grants, placedByRequest)) {
                     continue;
                 }
-                if (best == null || better(v, best, prepared)) {
+                if (best == null || better(v, best, prepared, queueOrder)) {
                     best = v;
                 }
             }
@@ -103,9 +131,12 @@ public final class GreedyDispatcher {
         return true;
     }
 
-    private static boolean better(Visit a, Visit b, PreparedProblem prepared) {
+    private boolean better(Visit a, Visit b, PreparedProblem prepared, Map<String, Integer> queueOrder) {
         if (a.priority() != b.priority()) {
             return a.priority() > b.priority();
+        }
+        if (!urgencyAware) {
+            return queueOrder.get(a.id()) < queueOrder.get(b.id());
         }
         var ra = prepared.requestByVisit().get(a.id()).latestNight();
         var rb = prepared.requestByVisit().get(b.id()).latestNight();

@@ -166,7 +166,7 @@ public final class Planner {
         // candidate of every visit would spend most of the time limit.
         boolean started = prepared.schedule().visits().stream().anyMatch(v -> v.isPlaced() && !v.isPinned());
         if (!started) {
-            new GreedyDispatcher().dispatch(prepared);
+            GreedyDispatcher.urgencyAware().dispatch(prepared);
         }
         SolverConfig config = solverConfig(options);
         SolverFactory<Schedule> factory = SolverFactory.create(config);

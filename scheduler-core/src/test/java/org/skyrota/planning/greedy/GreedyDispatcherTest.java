@@ -40,7 +40,7 @@ class GreedyDispatcherTest {
         }
         PreparedProblem prepared = prepare(requests, 100);
 
-        new GreedyDispatcher().dispatch(prepared);
+        GreedyDispatcher.byHand().dispatch(prepared);
 
         List<Visit> placed = prepared.schedule().visits().stream().filter(Visit::isPlaced)
                 .sorted((a, b) -> Integer.compare(a.startMinute(), b.startMinute())).toList();
@@ -63,11 +63,33 @@ class GreedyDispatcherTest {
         List<Request> requests = List.of(request("a", 5, 40, 260), request("b", 5, 40, 270), request("c", 5, 40, 280));
         PreparedProblem prepared = prepare(requests, 1.5);
 
-        new GreedyDispatcher().dispatch(prepared);
+        GreedyDispatcher.byHand().dispatch(prepared);
 
         long used = prepared.schedule().visits().stream().mapToLong(Visit::placedMinutes).sum();
         assertThat(used).isLessThanOrEqualTo(90);
         assertThat(prepared.schedule().visits().stream().filter(Visit::isPlaced)).hasSize(2);
+    }
+
+    @Test
+    void byHandEqualPrioritiesGoInQueueOrderWhileTheUrgencyAwareVariantTakesTheRangeThatClosesFirst() {
+        Request roomy = new Request("roomy", "lab", "member", Target.fixed("invented field roomy", 270, 20),
+                List.of(new ExposureStep("V", 60, 40)), ObservingLimits.dark(30), NIGHT, NIGHT.plusDays(5), 1, null,
+                null, 3);
+        Request closing = new Request("closing", "lab", "member", Target.fixed("invented field closing", 270, 20),
+                List.of(new ExposureStep("V", 60, 40)), ObservingLimits.dark(30), NIGHT, NIGHT, 1, null, null, 3);
+
+        PreparedProblem byHand = prepare(List.of(roomy, closing), 100);
+        GreedyDispatcher.byHand().dispatch(byHand);
+        PreparedProblem urgent = prepare(List.of(roomy, closing), 100);
+        GreedyDispatcher.urgencyAware().dispatch(urgent);
+
+        assertThat(firstStarted(byHand).requestId()).isEqualTo("roomy");
+        assertThat(firstStarted(urgent).requestId()).isEqualTo("closing");
+    }
+
+    private static Visit firstStarted(PreparedProblem prepared) {
+        return prepared.schedule().visits().stream().filter(Visit::isPlaced)
+                .min((a, b) -> Integer.compare(a.startMinute(), b.startMinute())).orElseThrow();
     }
 
     private static Request request(String id, int priority, int minutes, double raDeg) {
