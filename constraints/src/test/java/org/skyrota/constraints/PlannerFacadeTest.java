@@ -31,19 +31,21 @@ import org.skyrota.planning.solver.SolveOptions;
 /** The solver facade end to end on small invented problems and the synthetic sky. */
 class PlannerFacadeTest {
     private final Planner planner = new Planner(TestProblems.SKY, SkyrotaConstraints.class);
-    private final SolveOptions twoSeconds = SolveOptions.of(Duration.ofSeconds(2)).withSeed(1);
+    // An evaluation limit as well as a time limit: the same search on an idle or a busy machine (about 1 s idle).
+    private final SolveOptions shortRun = SolveOptions.of(Duration.ofSeconds(10)).withSeed(1)
+            .withEvaluationLimit(20_000);
 
     @Test
     void pinnedVisitsNeverMoveEvenWhenTheyBreakARuleWhichIsThenReportedByName() {
         PlanningProblem base = TestProblems.random(3, 2, 2, 24);
         // 17:00 local is before dusk on the synthetic sky: outside every window.
         Instant outside = LocalDate.of(2027, 3, 8).atTime(17, 0).atZone(TestProblems.SITE.zone()).toInstant();
-        PlanResult free = planner.solve(base, twoSeconds);
+        PlanResult free = planner.solve(base, shortRun);
         PlannedVisit somewhere = free.planned().get(free.planned().size() / 2);
         List<Assignment> pins = List.of(new Assignment(somewhere.visitId(), "hill-b", somewhere.start()),
                 new Assignment("q0", "hill-a", outside));
 
-        PlanResult pinned = planner.solve(base.withPins(pins), twoSeconds);
+        PlanResult pinned = planner.solve(base.withPins(pins), shortRun);
 
         assertThat(pinned.planned()).anySatisfy(p -> {
             assertThat(p.visitId()).isEqualTo(somewhere.visitId());
@@ -66,14 +68,14 @@ class PlannerFacadeTest {
         PlanningProblem problem = TestProblems.random(5, 2, 3, 30)
                 .withClosures(List.of(Closure.telescope("hill", "hill-a", closedNight, "dome maintenance")));
 
-        PreparedProblem prepared = planner.prepare(problem, twoSeconds);
+        PreparedProblem prepared = planner.prepare(problem, shortRun);
         for (Visit v : prepared.schedule().visits()) {
             for (Placement p : v.getCandidates()) {
                 assertThat(p.telescopeIndex() == 0 && p.nightEpochDay() == closedNight.toEpochDay())
                         .as("candidate %s of %s", p, v.id()).isFalse();
             }
         }
-        PlanResult result = planner.solve(problem, twoSeconds);
+        PlanResult result = planner.solve(problem, shortRun);
         assertThat(result.planned()).noneMatch(p -> p.telescopeId().equals("hill-a")
                 && nightOf(p.start()).equals(closedNight));
         assertThat(result.planned()).anyMatch(p -> nightOf(p.start()).equals(closedNight));
@@ -83,14 +85,14 @@ class PlannerFacadeTest {
     @Test
     void replanningAfterAClosedNightKeepsTheOtherVisitsWhereTheyWere() {
         PlanningProblem problem = TestProblems.random(7, 2, 3, 40);
-        PlanResult first = planner.solve(problem, twoSeconds);
+        PlanResult first = planner.solve(problem, shortRun);
         LocalDate closedNight = TestProblems.FIRST.plusDays(2);
         List<Assignment> outsideTheNight = first.assignments().stream()
                 .filter(a -> !nightOf(a.start()).equals(closedNight)).toList();
 
         List<Progress> progress = new ArrayList<>();
         PlanResult replanned = planner.replan(problem.withClosures(List.of(Closure.site("hill", closedNight, "snow"))),
-                first, twoSeconds, progress::add);
+                first, shortRun, progress::add);
 
         Set<String> kept = Planner.unchanged(replanned, outsideTheNight);
         assertThat((double) kept.size() / outsideTheNight.size()).isGreaterThanOrEqualTo(0.9);
@@ -100,7 +102,7 @@ class PlannerFacadeTest {
 
         // The fast path reuses the candidates instead of asking the sky again, with the same guarantees.
         PlanResult fast = planner.replanAfterClosures(first, List.of(Closure.site("hill", closedNight, "snow")),
-                twoSeconds, p -> { });
+                shortRun, p -> { });
         assertThat((double) Planner.unchanged(fast, outsideTheNight).size() / outsideTheNight.size())
                 .isGreaterThanOrEqualTo(0.9);
         assertThat(fast.planned()).noneMatch(p -> nightOf(p.start()).equals(closedNight));
@@ -110,13 +112,13 @@ class PlannerFacadeTest {
     @Test
     void aPinOnANightClosedLaterStaysAndTheClosureIsReportedAsAHardViolation() {
         PlanningProblem problem = TestProblems.random(9, 2, 2, 20);
-        PlanResult first = planner.solve(problem, twoSeconds);
+        PlanResult first = planner.solve(problem, shortRun);
         PlannedVisit pinnedVisit = first.planned().get(0);
         PlanResult withPin = planner.solve(problem.withPins(List.of(
-                new Assignment(pinnedVisit.visitId(), pinnedVisit.telescopeId(), pinnedVisit.start()))), twoSeconds);
+                new Assignment(pinnedVisit.visitId(), pinnedVisit.telescopeId(), pinnedVisit.start()))), shortRun);
 
         PlanResult closed = planner.replanAfterClosures(withPin,
-                List.of(Closure.site("hill", nightOf(pinnedVisit.start()), "storm")), twoSeconds, p -> { });
+                List.of(Closure.site("hill", nightOf(pinnedVisit.start()), "storm")), shortRun, p -> { });
 
         assertThat(closed.planned()).anySatisfy(p -> {
             assertThat(p.visitId()).isEqualTo(pinnedVisit.visitId());
@@ -143,7 +145,7 @@ class PlannerFacadeTest {
         requests.add(noFilter);
         requests.add(neverUp);
         requests.add(tooLong);
-        PlanResult result = planner.solve(TestProblems.problem(TestProblems.TELESCOPES, requests, 1, 200), twoSeconds);
+        PlanResult result = planner.solve(TestProblems.problem(TestProblems.TELESCOPES, requests, 1, 200), shortRun);
 
         assertThat(result.leftOut()).isNotEmpty();
         assertThat(result.leftOut()).allSatisfy(l -> assertThat(l.reason()).isNotBlank());
@@ -163,8 +165,8 @@ class PlannerFacadeTest {
                 TestProblems.request("b", "lab", 280, 50, 3, TestProblems.FIRST, TestProblems.FIRST));
         PlanningProblem problem = TestProblems.problem(TestProblems.TELESCOPES, requests, 1, 1.0);
 
-        PlanResult hard = planner.solve(problem, twoSeconds);
-        PlanResult medium = planner.solve(problem, twoSeconds.withWeights(
+        PlanResult hard = planner.solve(problem, shortRun);
+        PlanResult medium = planner.solve(problem, shortRun.withWeights(
                 Map.of(RuleNames.PROGRAM_OVER_GRANT, HardMediumSoftLongScore.ofMedium(1))));
 
         assertThat(hard.planned()).hasSize(1);
@@ -188,8 +190,8 @@ class PlannerFacadeTest {
                 base.programs(), base.requests(), List.of(), List.of(), List.of(), base.firstNight(), base.lastNight(),
                 5, 5);
 
-        PlanResult placed = planner.solve(withSolarFilter, twoSeconds);
-        PlanResult nowhere = planner.solve(base, twoSeconds);
+        PlanResult placed = planner.solve(withSolarFilter, shortRun);
+        PlanResult nowhere = planner.solve(base, shortRun);
 
         assertThat(placed.planned()).singleElement().satisfies(p -> {
             assertThat(p.telescopeId()).isEqualTo("hill-b");
