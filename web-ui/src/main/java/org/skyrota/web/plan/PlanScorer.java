@@ -24,11 +24,11 @@ import org.springframework.stereotype.Component;
 @Component
 class PlanScorer {
 
-    private final Planner planner;
+    private final PlannerConfig planners;
     private final PlanInputs inputs;
 
-    PlanScorer(Planner planner, PlanInputs inputs) {
-        this.planner = planner;
+    PlanScorer(PlannerConfig planners, PlanInputs inputs) {
+        this.planners = planners;
         this.inputs = inputs;
     }
 
@@ -51,6 +51,7 @@ class PlanScorer {
     Scored score(LocalDate first, LocalDate last, List<PlanVisit> visits, List<PlanNight> nights) {
         List<PlanVisit> held = visits.stream().filter(PlanVisit::isPlaced).toList();
         PlanningMapper.Mapped mapped = inputs.problem(first, last, null, held, nights);
+        Planner planner = planners.fresh();
         PlanResult result = planner.evaluate(planner.prepare(mapped.problem(), SolveOptions.of(Duration.ofSeconds(1))));
         return new Scored(result.score(), result.scoreByRule(), mapped.visits(result));
     }
@@ -71,6 +72,7 @@ class PlanScorer {
         if (visitId == null) {
             return List.of();
         }
+        Planner planner = planners.fresh();
         PreparedProblem prepared = planner.prepare(mapped.problem(), SolveOptions.of(Duration.ofSeconds(1)));
         Visit visit = prepared.schedule().visits().stream().filter(v -> v.id().equals(visitId)).findFirst().orElse(null);
         if (visit == null || visit.getCandidates().isEmpty()) {
