@@ -154,7 +154,7 @@ async function movePanel(ctx, v, clock) {
       el('tbody', {}, candidates.map(c => {
         const ct = ctx.telescopes.find(x => x.id === c.telescopeId);
         return el('tr', {}, el('td', {}, ct ? ct.name : `#${c.telescopeId}`), el('td', {}, timeEl(c.start, siteClock(siteOfTelescope(ctx, ct)), true)),
-          el('td', { class: 'num' }, String(c.scoreDelta ?? c.scoreAfter ?? '')),
+          el('td', { class: 'num' }, String(c.scoreChange ?? c.scoreAfter ?? '')),
           el('td', {}, el('button', { type: 'button', class: 'secondary', onclick: () => change(ctx, `/api/visits/${id}/move`,
             { method: 'POST', body: { telescopeId: c.telescopeId, start: c.start } }, `${v.targetName} moved.`) }, 'Move here')));
       }))));

@@ -304,8 +304,8 @@ public class PlanService {
         return m;
     }
 
-    /** A placement the visit could move to, and what that does to the score ({@code scoreDelta} repeats it). */
-    public record CandidateView(long telescopeId, Instant start, Instant end, String scoreChange, String scoreDelta,
+    /** A placement the visit could move to, and what that does to the score. */
+    public record CandidateView(long telescopeId, Instant start, Instant end, String scoreChange,
                                 List<String> hardBroken) {}
 
     /** Up to 12 other placements of a draft visit, each scored as if it moved there. */
@@ -318,7 +318,7 @@ public class PlanService {
             throw new NotFoundException("visit", visitId);
         }
         return scorer.candidates(rev.getFirstNight(), rev.getLastNight(), rev.getVisits(), rev.getNights(), key, 12)
-                .stream().map(c -> new CandidateView(c.telescopeId(), c.start(), c.end(), c.scoreChange(), c.scoreChange(),
+                .stream().map(c -> new CandidateView(c.telescopeId(), c.start(), c.end(), c.scoreChange(),
                         c.hardBroken())).toList();
     }
 
