@@ -37,8 +37,16 @@ class SecurityConfig {
         return new BCryptPasswordEncoder();
     }
 
+    /** Registered in the security chain only, not a second time as a plain servlet filter. */
     @Bean
-    SecurityFilterChain api(HttpSecurity http) throws Exception {
+    org.springframework.boot.web.servlet.FilterRegistrationBean<SignInThrottle> signInThrottleOutsideTheChain(SignInThrottle throttle) {
+        org.springframework.boot.web.servlet.FilterRegistrationBean<SignInThrottle> r = new org.springframework.boot.web.servlet.FilterRegistrationBean<>(throttle);
+        r.setEnabled(false);
+        return r;
+    }
+
+    @Bean
+    SecurityFilterChain api(HttpSecurity http, SignInThrottle throttle) throws Exception {
         CsrfTokenRequestAttributeHandler plainToken = new CsrfTokenRequestAttributeHandler();
         http
                 .authorizeHttpRequests(auth -> auth
@@ -67,6 +75,7 @@ class SecurityConfig {
                         .csrfTokenRequestHandler(plainToken)
                         .ignoringRequestMatchers(SecurityConfig::carriesCredentials))
                 .addFilterAfter(new CsrfCookieFilter(), BasicAuthenticationFilter.class)
+                .addFilterBefore(throttle, org.springframework.security.web.authentication.UsernamePasswordAuthenticationFilter.class)
                 .exceptionHandling(e -> e
                         .defaultAuthenticationEntryPointFor(SecurityConfig::unauthorized, request -> request.getRequestURI().startsWith("/api/"))
                         .accessDeniedHandler((request, response, denied) -> problem(request, response, 403, "Forbidden",
