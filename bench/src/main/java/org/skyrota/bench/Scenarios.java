@@ -46,9 +46,10 @@ final class Scenarios {
             int repeats = random.nextInt(5) == 0 ? 2 : 1;
             repeats = Math.min(repeats, 60 - visits);
             String filter = filters[random.nextInt(filters.length)];
-            int count = 2 + random.nextInt(8);
+            int count = 4 + random.nextInt(12);
             double seconds = 60 * (1 + random.nextInt(10));
-            Target target = Target.fixed("NGC " + (1000 + n * 37), random.nextDouble() * 360, -10 + random.nextDouble() * 70);
+            // Right ascensions of 180-360° are up in the dark on these March nights of the synthetic sky: all compete.
+            Target target = Target.fixed("invented field " + n, 180 + random.nextDouble() * 180, -10 + random.nextDouble() * 70);
             LocalDate earliest = SMALL_FIRST_NIGHT.plusDays(repeats == 2 ? 0 : random.nextInt(2));
             LocalDate latest = repeats == 2 ? SMALL_FIRST_NIGHT.plusDays(2) : earliest.plusDays(random.nextInt(3 - (int) (earliest.toEpochDay() - SMALL_FIRST_NIGHT.toEpochDay())));
             requests.add(new Request("q" + n, random.nextBoolean() ? "astro101" : "club", "member" + random.nextInt(20),

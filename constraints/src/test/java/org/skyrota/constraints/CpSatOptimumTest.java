@@ -38,7 +38,9 @@ class CpSatOptimumTest {
     void thePlannerReachesTheCpSatOptimumWithinOnePercentOnATinySeededInstance() {
         PlanningProblem problem = TestProblems.random(11, 2, 1, 30);
         Planner planner = new Planner(TestProblems.SKY, SkyrotaConstraints.class);
-        SolveOptions options = SolveOptions.of(Duration.ofSeconds(3)).withSeed(11);
+        // An evaluation limit, not only a time limit, so the run is the same on a busy machine (about 2 s on an idle one).
+        SolveOptions options = SolveOptions.of(Duration.ofSeconds(20)).withSeed(11)
+                .withEvaluationLimit(60_000);
 
         PreparedProblem forReference = planner.prepare(problem, options);
         long optimum = cpSatOptimum(forReference.schedule());

@@ -167,7 +167,6 @@ public final class CandidateGenerator {
         private final List<Site> sites;
         private final int[] siteOfTelescope;
         private final ConcurrentHashMap<Long, Placement> byKey = new ConcurrentHashMap<>();
-        private final java.util.concurrent.atomic.AtomicInteger nextId = new java.util.concurrent.atomic.AtomicInteger();
 
         PlacementRegistry(Instant epoch, List<Telescope> telescopes, List<Site> sites, Map<String, Integer> siteIndex) {
             this.epoch = epoch;
@@ -180,7 +179,13 @@ public final class CandidateGenerator {
             long key = ((long) telescopeIndex << 32) | (startMinute & 0xffffffffL);
             return byKey.computeIfAbsent(key, k -> {
                 int site = siteOfTelescope[telescopeIndex];
-                return new Placement(nextId.getAndIncrement(), telescopeIndex, site, startMinute,
+                // The id orders placements by telescope, then time, whatever order the threads create them in,
+                // so that candidate lists (and with a fixed seed the whole search) are the same on every run.
+                if (startMinute < 0 || startMinute >= (1 << 22) || telescopeIndex >= 500) {
+                    throw new IllegalArgumentException("placement outside the planning horizon: telescope "
+                            + telescopeIndex + ", minute " + startMinute);
+                }
+                return new Placement((telescopeIndex << 22) | startMinute, telescopeIndex, site, startMinute,
                         (int) nightOf(sites.get(site), instantOf(startMinute)).toEpochDay());
             });
         }

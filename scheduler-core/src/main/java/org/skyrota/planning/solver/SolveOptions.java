@@ -12,9 +12,12 @@ import org.optaplanner.core.api.score.buildin.hardmediumsoftlong.HardMediumSoftL
  * @param unimprovedTimeLimit stop earlier when the best score has not improved for this long, or null
  * @param weightOverrides     rule name to weight, replacing the defaults for this run (see constraints/WEIGHTS.md)
  * @param randomSeed          seed of the solver's random choices, for repeatable runs
+ * @param evaluationLimit     stop after this many score evaluations, or 0 for no such limit: with a fixed seed
+ *                            this makes a run repeatable whatever the machine's load (tests use it)
  */
 public record SolveOptions(Duration timeLimit, Duration unimprovedTimeLimit,
-                           Map<String, HardMediumSoftLongScore> weightOverrides, long randomSeed) {
+                           Map<String, HardMediumSoftLongScore> weightOverrides, long randomSeed,
+                           long evaluationLimit) {
     public SolveOptions {
         if (timeLimit == null || timeLimit.isNegative() || timeLimit.isZero()) {
             throw new IllegalArgumentException("timeLimit must be positive, got " + timeLimit);
@@ -23,21 +26,28 @@ public record SolveOptions(Duration timeLimit, Duration unimprovedTimeLimit,
             throw new IllegalArgumentException("unimprovedTimeLimit must be positive or null, got " + unimprovedTimeLimit);
         }
         weightOverrides = Map.copyOf(weightOverrides == null ? Map.of() : weightOverrides);
+        if (evaluationLimit < 0) {
+            throw new IllegalArgumentException("evaluationLimit must not be negative, got " + evaluationLimit);
+        }
     }
 
     public static SolveOptions of(Duration timeLimit) {
-        return new SolveOptions(timeLimit, null, Map.of(), 0L);
+        return new SolveOptions(timeLimit, null, Map.of(), 0L, 0L);
     }
 
     public SolveOptions withUnimprovedTimeLimit(Duration limit) {
-        return new SolveOptions(timeLimit, limit, weightOverrides, randomSeed);
+        return new SolveOptions(timeLimit, limit, weightOverrides, randomSeed, evaluationLimit);
     }
 
     public SolveOptions withWeights(Map<String, HardMediumSoftLongScore> overrides) {
-        return new SolveOptions(timeLimit, unimprovedTimeLimit, overrides, randomSeed);
+        return new SolveOptions(timeLimit, unimprovedTimeLimit, overrides, randomSeed, evaluationLimit);
     }
 
     public SolveOptions withSeed(long seed) {
-        return new SolveOptions(timeLimit, unimprovedTimeLimit, weightOverrides, seed);
+        return new SolveOptions(timeLimit, unimprovedTimeLimit, weightOverrides, seed, evaluationLimit);
+    }
+
+    public SolveOptions withEvaluationLimit(long limit) {
+        return new SolveOptions(timeLimit, unimprovedTimeLimit, weightOverrides, randomSeed, limit);
     }
 }

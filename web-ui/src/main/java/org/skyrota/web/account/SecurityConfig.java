@@ -12,6 +12,9 @@ import org.springframework.http.MediaType;
 import org.springframework.security.config.annotation.web.builders.HttpSecurity;
 import org.springframework.security.crypto.bcrypt.BCryptPasswordEncoder;
 import org.springframework.security.crypto.password.PasswordEncoder;
+import org.skyrota.web.report.ApiTokenRepository;
+import org.skyrota.web.report.FeedTokenRepository;
+import org.skyrota.web.report.TokenAuthenticationFilter;
 import org.springframework.security.web.SecurityFilterChain;
 import org.springframework.security.web.authentication.www.BasicAuthenticationFilter;
 import org.springframework.security.web.csrf.CookieCsrfTokenRepository;
@@ -46,14 +49,17 @@ class SecurityConfig {
     }
 
     @Bean
-    SecurityFilterChain api(HttpSecurity http, SignInThrottle throttle) throws Exception {
+    SecurityFilterChain api(HttpSecurity http, ApiTokenRepository apiTokens, FeedTokenRepository feedTokens,
+                            AccountRepository accounts, SignInThrottle throttle) throws Exception {
         CsrfTokenRequestAttributeHandler plainToken = new CsrfTokenRequestAttributeHandler();
         http
                 .authorizeHttpRequests(auth -> auth
                         .requestMatchers(HttpMethod.GET, "/api/almanac", "/api/visibility", "/api/about").permitAll()
                         .requestMatchers("/actuator/health", "/actuator/health/**", "/actuator/info").permitAll()
                         .requestMatchers("/v3/api-docs", "/v3/api-docs/**", "/swagger-ui/**", "/swagger-ui.html").permitAll()
-                        .requestMatchers("/api/accounts/me", "/api/accounts/me/password").authenticated()
+                        .requestMatchers("/api/accounts/me", "/api/accounts/me/password", "/api/accounts/me/feed-token").authenticated()
+                        .requestMatchers(HttpMethod.POST, "/api/reports").hasAuthority("SCOPE_reports")
+                        .requestMatchers("/api/tokens", "/api/tokens/**").hasRole(REVIEWER_ROLES_ADMIN)
                         .requestMatchers("/api/accounts", "/api/accounts/**").hasRole(REVIEWER_ROLES_ADMIN)
                         .requestMatchers("/api/audit", "/api/audit/**").hasAnyRole(REVIEWER_ROLES_COORDINATOR, REVIEWER_ROLES_ADMIN)
                         .requestMatchers("/api/planner/**", "/api/visits/**").hasAnyRole(REVIEWER_ROLES_COORDINATOR, REVIEWER_ROLES_ADMIN)
@@ -74,6 +80,7 @@ class SecurityConfig {
                         .csrfTokenRepository(CookieCsrfTokenRepository.withHttpOnlyFalse())
                         .csrfTokenRequestHandler(plainToken)
                         .ignoringRequestMatchers(SecurityConfig::carriesCredentials))
+                .addFilterBefore(new TokenAuthenticationFilter(apiTokens, feedTokens, accounts), BasicAuthenticationFilter.class)
                 .addFilterAfter(new CsrfCookieFilter(), BasicAuthenticationFilter.class)
                 .addFilterBefore(throttle, org.springframework.security.web.authentication.UsernamePasswordAuthenticationFilter.class)
                 .exceptionHandling(e -> e

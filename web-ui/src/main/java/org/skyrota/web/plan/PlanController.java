@@ -82,6 +82,11 @@ class PlanController {
         return service.unplace(id, version, dryRun);
     }
 
+    @GetMapping("/api/visits/{id}/candidates")
+    List<PlanService.CandidateView> candidates(@PathVariable String id) {
+        return service.candidates(id);
+    }
+
     @GetMapping("/api/programs/usage")
     List<UsageView> usage() {
         return service.usage();

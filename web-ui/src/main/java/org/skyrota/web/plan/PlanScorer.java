@@ -6,7 +6,12 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
 
+import java.time.Instant;
+
 import org.optaplanner.core.api.score.buildin.hardmediumsoftlong.HardMediumSoftLongScore;
+import org.skyrota.planning.candidates.PreparedProblem;
+import org.skyrota.planning.domain.Placement;
+import org.skyrota.planning.domain.Visit;
 import org.skyrota.planning.solver.PlanResult;
 import org.skyrota.planning.solver.Planner;
 import org.skyrota.planning.solver.SolveOptions;
@@ -19,11 +24,11 @@ import org.springframework.stereotype.Component;
 @Component
 class PlanScorer {
 
-    private final Planner planner;
+    private final PlannerConfig planners;
     private final PlanInputs inputs;
 
-    PlanScorer(Planner planner, PlanInputs inputs) {
-        this.planner = planner;
+    PlanScorer(PlannerConfig planners, PlanInputs inputs) {
+        this.planners = planners;
         this.inputs = inputs;
     }
 
@@ -46,7 +51,58 @@ class PlanScorer {
     Scored score(LocalDate first, LocalDate last, List<PlanVisit> visits, List<PlanNight> nights) {
         List<PlanVisit> held = visits.stream().filter(PlanVisit::isPlaced).toList();
         PlanningMapper.Mapped mapped = inputs.problem(first, last, null, held, nights);
+        Planner planner = planners.fresh();
         PlanResult result = planner.evaluate(planner.prepare(mapped.problem(), SolveOptions.of(Duration.ofSeconds(1))));
         return new Scored(result.score(), result.scoreByRule(), mapped.visits(result));
+    }
+
+    /** One other placement of a visit and what moving it there does to the score. */
+    record Candidate(long telescopeId, Instant start, Instant end, String scoreChange, List<String> hardBroken) {}
+
+    /**
+     * Up to {@code max} of the visit's candidate placements (spread over all of them), each scored with every other
+     * placed visit held where it is.
+     */
+    List<Candidate> candidates(LocalDate first, LocalDate last, List<PlanVisit> visits, List<PlanNight> nights,
+                               VisitKey key, int max) {
+        List<PlanVisit> held = visits.stream().filter(v -> v.isPlaced() && !v.key().equals(key)).toList();
+        PlanningMapper.Mapped mapped = inputs.problem(first, last, null, held, nights);
+        String visitId = mapped.keyByVisitId().entrySet().stream().filter(e -> e.getValue().equals(key))
+                .map(Map.Entry::getKey).findFirst().orElse(null);
+        if (visitId == null) {
+            return List.of();
+        }
+        Planner planner = planners.fresh();
+        PreparedProblem prepared = planner.prepare(mapped.problem(), SolveOptions.of(Duration.ofSeconds(1)));
+        Visit visit = prepared.schedule().visits().stream().filter(v -> v.id().equals(visitId)).findFirst().orElse(null);
+        if (visit == null || visit.getCandidates().isEmpty()) {
+            return List.of();
+        }
+        PlanVisit current = visits.stream().filter(v -> v.key().equals(key) && v.isPlaced()).findFirst().orElse(null);
+        Placement now = current == null ? null : visit.getCandidates().stream()
+                .filter(p -> prepared.telescope(p.telescopeIndex()).id().equals(String.valueOf(current.getTelescopeId()))
+                        && prepared.schedule().instantOf(p.startMinute()).equals(current.getStart()))
+                .findFirst().orElse(null);
+        visit.setPlacement(now);
+        PlanResult before = planner.evaluate(prepared);
+        List<Placement> all = visit.getCandidates();
+        int step = Math.max(1, (all.size() + max - 1) / max);
+        List<Candidate> out = new ArrayList<>();
+        for (int i = 0; i < all.size() && out.size() < max; i += step) {
+            Placement p = all.get(i);
+            if (p == now) {
+                continue;
+            }
+            visit.setPlacement(p);
+            PlanResult after = planner.evaluate(prepared);
+            Scored was = new Scored(before.score(), before.scoreByRule(), List.of());
+            Scored is = new Scored(after.score(), after.scoreByRule(), List.of());
+            Instant start = prepared.schedule().instantOf(p.startMinute());
+            out.add(new Candidate(Long.parseLong(prepared.telescope(p.telescopeIndex()).id()), start,
+                    prepared.schedule().instantOf(p.startMinute() + visit.lengthOn(p.telescopeIndex())),
+                    after.score().subtract(before.score()).toString(), is.hardBrokenSince(was)));
+        }
+        visit.setPlacement(now);
+        return out;
     }
 }

@@ -304,6 +304,24 @@ public class PlanService {
         return m;
     }
 
+    /** A placement the visit could move to, and what that does to the score ({@code scoreDelta} repeats it). */
+    public record CandidateView(long telescopeId, Instant start, Instant end, String scoreChange, String scoreDelta,
+                                List<String> hardBroken) {}
+
+    /** Up to 12 other placements of a draft visit, each scored as if it moved there. */
+    @Transactional(readOnly = true)
+    public List<CandidateView> candidates(String visitId) {
+        VisitKey key = VisitKey.parse(visitId);
+        PlanRevision rev = revisions.findFirstByStateOrderByIdDesc(PlanRevision.State.DRAFT)
+                .orElseThrow(() -> new ConflictException("There is no draft plan yet; start a planner run first"));
+        if (rev.getVisits().stream().noneMatch(v -> v.key().equals(key))) {
+            throw new NotFoundException("visit", visitId);
+        }
+        return scorer.candidates(rev.getFirstNight(), rev.getLastNight(), rev.getVisits(), rev.getNights(), key, 12)
+                .stream().map(c -> new CandidateView(c.telescopeId(), c.start(), c.end(), c.scoreChange(), c.scoreChange(),
+                        c.hardBroken())).toList();
+    }
+
     // ---- publishing and comparing ----
 
     /** Copies the draft {@code revision} into a new published revision; the previous published one is retired. */

@@ -64,6 +64,12 @@ public class RequestService {
         return PageView.of(requests.findAll(spec, pageable), RequestView::of);
     }
 
+    /** The stored request, when the signed-in user may see it (else 404, as for {@link #get}). */
+    @Transactional(readOnly = true)
+    public ObservingRequest readable(long id) {
+        return find(id);
+    }
+
     @Transactional(readOnly = true)
     public RequestView get(long id) {
         return RequestView.of(find(id));

@@ -28,6 +28,7 @@ import org.skyrota.planning.solver.SolveOptions;
 import org.skyrota.web.account.CurrentUser;
 import org.skyrota.web.plan.PlanInputs;
 import org.skyrota.web.plan.PlanNight;
+import org.skyrota.web.plan.PlannerConfig;
 import org.skyrota.web.plan.PlanRevision;
 import org.skyrota.web.plan.PlanRevisionRepository;
 import org.skyrota.web.plan.PlanVisit;
@@ -40,6 +41,7 @@ import org.skyrota.web.system.InvalidParametersException;
 import org.skyrota.web.system.NotFoundException;
 import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
+import org.springframework.dao.OptimisticLockingFailureException;
 import org.springframework.stereotype.Service;
 import org.springframework.transaction.PlatformTransactionManager;
 import org.springframework.transaction.support.TransactionTemplate;
@@ -65,7 +67,7 @@ public class RunService {
     private final PlannerRunRepository runs;
     private final PlanRevisionRepository revisions;
     private final PlanInputs inputs;
-    private final Planner planner;
+    private final PlannerConfig planners;
     private final RunEvents events;
     private final AuditLog audit;
     private final JsonMapper json;
@@ -74,12 +76,12 @@ public class RunService {
     private final Map<Long, Future<?>> futures = new ConcurrentHashMap<>();
     private final Set<Long> cancelling = ConcurrentHashMap.newKeySet();
 
-    RunService(PlannerRunRepository runs, PlanRevisionRepository revisions, PlanInputs inputs, Planner planner,
+    RunService(PlannerRunRepository runs, PlanRevisionRepository revisions, PlanInputs inputs, PlannerConfig planners,
                RunEvents events, AuditLog audit, JsonMapper json, PlatformTransactionManager transactions) {
         this.runs = runs;
         this.revisions = revisions;
         this.inputs = inputs;
-        this.planner = planner;
+        this.planners = planners;
         this.events = events;
         this.audit = audit;
         this.json = json;
@@ -235,7 +237,7 @@ public class RunService {
             });
             SolveOptions options = SolveOptions.of(Duration.ofSeconds(run.getTimeLimitSeconds())).withWeights(weights);
             long limitNanos = Duration.ofSeconds(run.getTimeLimitSeconds()).toNanos();
-            PlanResult result = planner.solve(mapped.problem(), options, p -> events.progress(id, progressData(p, limitNanos)));
+            PlanResult result = planners.fresh().solve(mapped.problem(), options, p -> events.progress(id, progressData(p, limitNanos)));
             if (cancelling.contains(id) || Thread.currentThread().isInterrupted()) {
                 endIfActive(id, RunState.CANCELLED, result.score().toString(), "cancelled");
                 return;
@@ -301,13 +303,18 @@ public class RunService {
         run.setRevisionId(draft.getId());
     }
 
+    /** Ends a run that is still queued or running; when the worker and a cancel race, the first one to end it wins. */
     private void endIfActive(long id, RunState how, String score, String message) {
-        tx.executeWithoutResult(status -> {
-            PlannerRun r = find(id);
-            if (r.getState().isActive()) {
-                r.end(how, Instant.now(), score, message);
-            }
-        });
+        try {
+            tx.executeWithoutResult(status -> {
+                PlannerRun r = find(id);
+                if (r.getState().isActive()) {
+                    r.end(how, Instant.now(), score, message);
+                }
+            });
+        } catch (OptimisticLockingFailureException e) {
+            log.debug("Run {} was ended by someone else at the same moment", id);
+        }
         events.done(id, doneData(find(id)));
     }
 

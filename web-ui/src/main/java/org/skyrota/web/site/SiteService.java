@@ -41,6 +41,12 @@ public class SiteService {
         return SiteView.of(find(id));
     }
 
+    /** Every stored site, by name. */
+    @Transactional(readOnly = true)
+    public java.util.List<Site> all() {
+        return sites.findAll(org.springframework.data.domain.Sort.by("name"));
+    }
+
     /** The stored site, for other features' services inside their own transaction. */
     @Transactional(readOnly = true)
     public Site find(long id) {

@@ -123,6 +123,11 @@ public class ProblemAdvice extends ResponseEntityExceptionHandler {
         }
     }
 
+    @ExceptionHandler(org.springframework.security.access.AccessDeniedException.class)
+    ResponseEntity<Object> forbidden(org.springframework.security.access.AccessDeniedException e, WebRequest request) {
+        return problem(e, HttpStatus.FORBIDDEN, ProblemTypes.FORBIDDEN, "Forbidden", e.getMessage(), request);
+    }
+
     @ExceptionHandler(ConflictException.class)
     ResponseEntity<Object> conflict(ConflictException e, WebRequest request) {
         return problem(e, HttpStatus.CONFLICT, ProblemTypes.CONFLICT, "Conflict", e.getMessage(), request);

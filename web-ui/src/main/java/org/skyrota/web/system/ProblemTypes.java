@@ -12,6 +12,7 @@ public final class ProblemTypes {
     public static final URI NOT_FOUND = URI.create("urn:skyrota:problem:not-found");
     public static final URI STALE_VERSION = URI.create("urn:skyrota:problem:stale-version");
     public static final URI CONFLICT = URI.create("urn:skyrota:problem:conflict");
+    public static final URI FORBIDDEN = URI.create("urn:skyrota:problem:forbidden");
     public static final URI INTERNAL = URI.create("urn:skyrota:problem:internal-error");
 
     private ProblemTypes() {}

@@ -23,12 +23,15 @@ import org.springframework.beans.factory.annotation.Autowired;
 import org.springframework.boot.test.context.SpringBootTest;
 import org.springframework.boot.test.web.server.LocalServerPort;
 import org.springframework.security.crypto.password.PasswordEncoder;
+import org.springframework.test.context.TestPropertySource;
 
 /**
  * Planner runs over HTTP: start, follow the event stream to its end, read the run and then the draft it wrote;
  * one run at a time per horizon; cancelling; pins kept across a re-run; publish and compare.
  */
 @SpringBootTest(webEnvironment = SpringBootTest.WebEnvironment.RANDOM_PORT)
+// A context of its own: runs plan every stored site, so another class's network would share this draft.
+@TestPropertySource(properties = "skyrota.test.context=planner-runs")
 class PlannerRunApiTest {
 
     static final String COORD = ApiClient.basic("runcoord", "password1");
@@ -260,6 +263,36 @@ class PlannerRunApiTest {
         assertThat(api.post("/api/plans/draft/publish?revision=" + d.id("$.revision"), COORD, null).status()).isEqualTo(409);
         Answer audit = api.get("/api/audit?entityType=plan", COORD);
         assertThat(audit.<List<String>>json("$.items[*].action")).contains("publish", "override");
+    }
+
+    @Test
+    void candidatesAreScoredAsTheMoveThereWouldBe() {
+        runToTheEnd(1);
+        Map<String, Object> visit = draft().<List<Map<String, Object>>>json("$.visits").get(0);
+        String id = (String) visit.get("id");
+        Answer list = api.get("/api/visits/" + id + "/candidates", COORD);
+        assertThat(list.status()).as(list.body()).isEqualTo(200);
+        List<Map<String, Object>> candidates = list.json("$");
+        assertThat(candidates).isNotEmpty().hasSizeLessThanOrEqualTo(12);
+        assertThat(candidates).allSatisfy(c -> {
+            assertThat((String) c.get("start")).isLessThan((String) c.get("end"));
+            assertThat((String) c.get("scoreChange")).matches("-?\\d+hard/-?\\d+medium/-?\\d+soft");
+        });
+        Map<String, Object> c = candidates.get(0);
+        Answer dry = api.post("/api/visits/" + id + "/move?dryRun=true", COORD, "{\"telescopeId\":" + c.get("telescopeId")
+                + ",\"start\":\"" + c.get("start") + "\"}");
+        assertThat(dry.status()).isEqualTo(200);
+        String[] before = ((String) dry.json("$.scoreBefore")).split("/");
+        String[] after = ((String) dry.json("$.scoreAfter")).split("/");
+        String[] change = ((String) c.get("scoreChange")).split("/");
+        for (int level = 0; level < 3; level++) {
+            assertThat(number(after[level]) - number(before[level])).as("level " + level).isEqualTo(number(change[level]));
+        }
+        assertThat(api.get("/api/visits/999999-1/candidates", COORD).status()).isEqualTo(404);
+    }
+
+    static long number(String part) {
+        return Long.parseLong(part.replaceAll("[a-z]", ""));
     }
 
     static long medium(String score) {

@@ -26,9 +26,18 @@ public final class EjectionMoveFactory implements MoveIteratorFactory<Schedule, 
         if (n == 0) {
             return null;
         }
+        // Half the time the free candidate nearest to where the visit was (keeps its night packed), otherwise the
+        // first free one from a random offset (explores other nights and telescopes).
+        boolean nearest = random.nextBoolean();
+        Placement best = null;
+        int bestDistance = Integer.MAX_VALUE;
+        int[] bestInterval = null;
         int offset = random.nextInt(n);
         for (int i = 0; i < n; i++) {
             Placement c = o.getCandidates().get((offset + i) % n);
+            if (nearest && best != null && Math.abs(c.startMinute() - o.startMinute()) >= bestDistance) {
+                continue;
+            }
             int s = c.startMinute();
             int e = s + o.lengthOn(c.telescopeIndex());
             boolean free = true;
@@ -48,11 +57,19 @@ public final class EjectionMoveFactory implements MoveIteratorFactory<Schedule, 
                 }
             }
             if (free) {
-                taken.add(new int[] {c.telescopeIndex(), s, e});
-                return c;
+                if (!nearest) {
+                    taken.add(new int[] {c.telescopeIndex(), s, e});
+                    return c;
+                }
+                best = c;
+                bestDistance = Math.abs(c.startMinute() - o.startMinute());
+                bestInterval = new int[] {c.telescopeIndex(), s, e};
             }
         }
-        return null;
+        if (best != null) {
+            taken.add(bestInterval);
+        }
+        return best;
     }
 
     @Override

@@ -1,0 +1,46 @@
+package org.skyrota.web.plugin;
+
+import java.nio.file.Path;
+import java.util.List;
+
+import org.skyrota.plugin.PluginJars;
+import org.skyrota.plugin.PluginLoadReport;
+import org.skyrota.plugin.PluginRegistry;
+import org.slf4j.Logger;
+import org.slf4j.LoggerFactory;
+import org.springframework.beans.factory.annotation.Value;
+import org.springframework.context.annotation.Bean;
+import org.springframework.context.annotation.Configuration;
+
+/**
+ * The plugins of this server: those on the class path (the bundled ones) and the jars in {@code <data-dir>/plugins}.
+ * A broken jar or plugin never stops the start: it is left out, logged, and listed by {@code GET /api/plugins}.
+ */
+@Configuration
+class PluginsConfig {
+
+    private static final Logger log = LoggerFactory.getLogger(PluginsConfig.class);
+
+    @Bean(destroyMethod = "close")
+    PluginJars pluginJars(@Value("${skyrota.data-dir}") String dataDir) {
+        return PluginJars.open(Path.of(dataDir, "plugins"), PluginsConfig.class.getClassLoader());
+    }
+
+    @Bean
+    PluginRegistry pluginRegistry(PluginJars jars) {
+        PluginRegistry registry;
+        try {
+            registry = PluginRegistry.load(jars.classLoader(), jars.problems(), PluginRegistry.CORE_SERVICES);
+        } catch (RuntimeException | LinkageError e) {
+            // The registry promises not to throw for a plugin; should it still, the server starts without plugins.
+            registry = PluginRegistry.of(List.of());
+            log.error("Plugins could not be loaded at all; the server runs without them", e);
+        }
+        for (PluginLoadReport problem : registry.problems()) {
+            log.warn("Plugin left out: {}", problem);
+        }
+        registry.loaded().forEach(p -> log.info("Plugin {} {} ({}) from {}", p.descriptor().id(), p.descriptor().version(),
+                p.service(), p.source()));
+        return registry;
+    }
+}

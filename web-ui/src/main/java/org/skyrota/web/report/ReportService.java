@@ -1,0 +1,78 @@
+package org.skyrota.web.report;
+
+import java.time.Duration;
+import java.time.Instant;
+import java.util.List;
+import java.util.Locale;
+
+import org.skyrota.web.plan.PlanRevision;
+import org.skyrota.web.plan.PlanRevisionRepository;
+import org.skyrota.web.plan.PlanVisit;
+import org.skyrota.web.plan.VisitKey;
+import org.skyrota.web.system.AuditLog;
+import org.skyrota.web.system.FieldProblem;
+import org.skyrota.web.system.InvalidParametersException;
+import org.skyrota.web.system.NotFoundException;
+import org.springframework.security.access.AccessDeniedException;
+import org.springframework.security.core.context.SecurityContextHolder;
+import org.springframework.stereotype.Service;
+import org.springframework.transaction.annotation.Transactional;
+
+/**
+ * Observation reports from a telescope's control computer, about visits of the published plan on that telescope.
+ * A done visit counts as observed time and is not planned again; a failed one stays open, so the next run plans it
+ * again (its request is back in the queue).
+ */
+@Service
+@Transactional
+public class ReportService {
+
+    private final ObservationReportRepository reports;
+    private final PlanRevisionRepository revisions;
+    private final AuditLog audit;
+
+    ReportService(ObservationReportRepository reports, PlanRevisionRepository revisions, AuditLog audit) {
+        this.reports = reports;
+        this.revisions = revisions;
+        this.audit = audit;
+    }
+
+    public record ReportView(long id, String visitId, long requestId, long telescopeId, String outcome, String reason,
+                             Instant observedAt, double observedHours, boolean requeued) {
+        static ReportView of(ObservationReport r) {
+            return new ReportView(r.getId(), new VisitKey(r.getRequestId(), r.getRepeatNo()).toString(), r.getRequestId(),
+                    r.getTelescopeId(), r.getOutcome().name().toLowerCase(Locale.ROOT), r.getReason(), r.getObservedAt(),
+                    Math.round(r.getObservedSeconds() / 36.0) / 100.0, r.getOutcome() == Outcome.FAILED);
+        }
+    }
+
+    public ReportView report(String visitId, String outcome, String reason, Instant observedAt) {
+        if (visitId == null || visitId.isBlank()) {
+            throw new InvalidParametersException(List.of(new FieldProblem("visitId", "must be given")));
+        }
+        Outcome how;
+        try {
+            how = Outcome.valueOf(outcome == null ? "" : outcome.trim().toUpperCase(Locale.ROOT));
+        } catch (IllegalArgumentException e) {
+            throw new InvalidParametersException(List.of(new FieldProblem("outcome", "must be done, partial or failed")));
+        }
+        if (reason != null && reason.length() > 1000) {
+            throw new InvalidParametersException(List.of(new FieldProblem("reason", "at most 1000 characters")));
+        }
+        VisitKey key = VisitKey.parse(visitId);
+        TokenPrincipal token = (TokenPrincipal) SecurityContextHolder.getContext().getAuthentication().getPrincipal();
+        PlanRevision published = revisions.findFirstByStateOrderByIdDesc(PlanRevision.State.PUBLISHED)
+                .orElseThrow(() -> new NotFoundException("published visit", visitId));
+        PlanVisit visit = published.getVisits().stream().filter(v -> v.isPlaced() && v.key().equals(key)).findFirst()
+                .orElseThrow(() -> new NotFoundException("published visit", visitId));
+        if (visit.getTelescopeId() != token.telescopeId()) {
+            throw new AccessDeniedException("visit " + visitId + " is planned on another telescope");
+        }
+        long seconds = how == Outcome.DONE ? Duration.between(visit.getStart(), visit.getEnd()).toSeconds() : 0;
+        ObservationReport saved = reports.saveAndFlush(new ObservationReport(key.requestId(), key.repeatNo(),
+                token.telescopeId(), how, reason, observedAt == null ? Instant.now() : observedAt, seconds, token.tokenId()));
+        ReportView view = ReportView.of(saved);
+        audit.record("create", "observation-report", saved.getId(), null, view);
+        return view;
+    }
+}

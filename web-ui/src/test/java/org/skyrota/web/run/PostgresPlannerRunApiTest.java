@@ -1,0 +1,26 @@
+package org.skyrota.web.run;
+
+import java.sql.SQLException;
+
+import org.junit.jupiter.api.AfterAll;
+import org.skyrota.web.support.EnabledIfPostgresReachable;
+import org.skyrota.web.support.LocalPostgres;
+import org.springframework.test.context.DynamicPropertyRegistry;
+import org.springframework.test.context.DynamicPropertySource;
+
+/** {@link PlannerRunApiTest} on PostgreSQL, in a schema of its own. */
+@EnabledIfPostgresReachable
+class PostgresPlannerRunApiTest extends PlannerRunApiTest {
+
+    private static final String SCHEMA = LocalPostgres.newSchemaName();
+
+    @DynamicPropertySource
+    static void postgres(DynamicPropertyRegistry registry) {
+        LocalPostgres.register(registry, SCHEMA);
+    }
+
+    @AfterAll
+    static void dropSchema() throws SQLException {
+        LocalPostgres.dropSchema(SCHEMA);
+    }
+}
