@@ -68,10 +68,18 @@ public final class LoadBench {
                 .redirectErrorStream(true).redirectOutput(data.resolve("server.log").toFile());
         pb.environment().put("SKYROTA_ADMIN_PASSWORD", adminPassword);
         Process server = pb.start();
-        ExecutorService pool = Executors.newFixedThreadPool(clients);
+        ExecutorService pool = Executors.newFixedThreadPool(clients, r -> {
+            Thread t = new Thread(r, "load-client");
+            t.setDaemon(true);
+            return t;
+        });
         try {
             HttpClient http = HttpClient.newBuilder().version(HttpClient.Version.HTTP_1_1)
-                    .connectTimeout(Duration.ofSeconds(5)).executor(Executors.newFixedThreadPool(4)).build();
+                    .connectTimeout(Duration.ofSeconds(5)).executor(Executors.newFixedThreadPool(4, r -> {
+                        Thread t = new Thread(r, "load-http");
+                        t.setDaemon(true); // the program ends when the clients are done
+                        return t;
+                    })).build();
             String base = "http://127.0.0.1:" + port;
             awaitHealthy(http, base, server, data.resolve("server.log"));
             Setup setup = Setup.make(http, base, adminPassword, clients);
