@@ -40,9 +40,17 @@ class SecurityConfig {
         return new BCryptPasswordEncoder();
     }
 
+    /** Registered in the security chain only, not a second time as a plain servlet filter. */
+    @Bean
+    org.springframework.boot.web.servlet.FilterRegistrationBean<SignInThrottle> signInThrottleOutsideTheChain(SignInThrottle throttle) {
+        org.springframework.boot.web.servlet.FilterRegistrationBean<SignInThrottle> r = new org.springframework.boot.web.servlet.FilterRegistrationBean<>(throttle);
+        r.setEnabled(false);
+        return r;
+    }
+
     @Bean
     SecurityFilterChain api(HttpSecurity http, ApiTokenRepository apiTokens, FeedTokenRepository feedTokens,
-                            AccountRepository accounts) throws Exception {
+                            AccountRepository accounts, SignInThrottle throttle) throws Exception {
         CsrfTokenRequestAttributeHandler plainToken = new CsrfTokenRequestAttributeHandler();
         http
                 .authorizeHttpRequests(auth -> auth
@@ -74,6 +82,7 @@ class SecurityConfig {
                         .ignoringRequestMatchers(SecurityConfig::carriesCredentials))
                 .addFilterBefore(new TokenAuthenticationFilter(apiTokens, feedTokens, accounts), BasicAuthenticationFilter.class)
                 .addFilterAfter(new CsrfCookieFilter(), BasicAuthenticationFilter.class)
+                .addFilterBefore(throttle, org.springframework.security.web.authentication.UsernamePasswordAuthenticationFilter.class)
                 .exceptionHandling(e -> e
                         .defaultAuthenticationEntryPointFor(SecurityConfig::unauthorized, request -> request.getRequestURI().startsWith("/api/"))
                         .accessDeniedHandler((request, response, denied) -> problem(request, response, 403, "Forbidden",

@@ -5,6 +5,8 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
 
+import jakarta.persistence.EntityManager;
+import jakarta.persistence.EntityManagerFactory;
 import jakarta.validation.ConstraintViolation;
 import jakarta.validation.ConstraintViolationException;
 
@@ -12,9 +14,11 @@ import org.slf4j.Logger;
 import tools.jackson.core.JacksonException;
 import org.slf4j.LoggerFactory;
 import org.springframework.beans.TypeMismatchException;
+import org.springframework.beans.factory.ObjectProvider;
 import org.springframework.context.MessageSourceResolvable;
 import org.springframework.context.i18n.LocaleContextHolder;
 import org.springframework.dao.DataIntegrityViolationException;
+import org.springframework.dao.PessimisticLockingFailureException;
 import org.springframework.data.core.PropertyReferenceException;
 import org.springframework.http.HttpHeaders;
 import org.springframework.http.HttpStatus;
@@ -47,6 +51,13 @@ public class ProblemAdvice extends ResponseEntityExceptionHandler {
     private static final URI ABOUT_BLANK = URI.create("about:blank");
     private static final Logger log = LoggerFactory.getLogger(ProblemAdvice.class);
 
+    /** Absent in slice tests without storage. */
+    private final ObjectProvider<EntityManagerFactory> storage;
+
+    public ProblemAdvice(ObjectProvider<EntityManagerFactory> storage) {
+        this.storage = storage;
+    }
+
     @ExceptionHandler(InvalidParametersException.class)
     ResponseEntity<Object> invalidParameters(InvalidParametersException e, WebRequest request) {
         return badRequest(e, e.problems(), request);
@@ -77,9 +88,39 @@ public class ProblemAdvice extends ResponseEntityExceptionHandler {
 
     @ExceptionHandler(ObjectOptimisticLockingFailureException.class)
     ResponseEntity<Object> concurrentEdit(ObjectOptimisticLockingFailureException e, WebRequest request) {
-        // Two edits raced past the version check; the loser learns the version by reading again.
-        return problem(e, HttpStatus.CONFLICT, ProblemTypes.STALE_VERSION, "Edited against an old version",
-                "Someone else changed this at the same moment; read it again and repeat the edit.", request);
+        // Two edits raced past the version check: the loser is told the version that won, as a stale edit is.
+        ProblemDetail body = ProblemDetail.forStatusAndDetail(HttpStatus.CONFLICT,
+                "Someone else changed this at the same moment; read it again and repeat the edit.");
+        body.setType(ProblemTypes.STALE_VERSION);
+        body.setTitle("Edited against an old version");
+        Long current = currentVersion(e);
+        if (current != null) {
+            body.setProperty("currentVersion", current);
+        }
+        return handleExceptionInternal(e, body, new HttpHeaders(), HttpStatus.CONFLICT, request);
+    }
+
+    @ExceptionHandler(PessimisticLockingFailureException.class)
+    ResponseEntity<Object> busy(PessimisticLockingFailureException e, WebRequest request) {
+        // Another change held the row for longer than the database waits; nothing of this one was stored.
+        log.info("A change waited too long for another one: {}", e.getMostSpecificCause().getMessage());
+        return problem(e, HttpStatus.CONFLICT, ProblemTypes.CONFLICT, "Conflict",
+                "Another change to the same data was under way; read it again and repeat the edit.", request);
+    }
+
+    /** The version that won a race, read afresh; null when it cannot be read (storage absent, entity gone). */
+    private Long currentVersion(ObjectOptimisticLockingFailureException e) {
+        EntityManagerFactory factory = storage.getIfAvailable();
+        if (factory == null || e.getIdentifier() == null) {
+            return null;
+        }
+        try (EntityManager em = factory.createEntityManager()) {
+            Class<?> type = e.getPersistentClass() != null ? e.getPersistentClass() : Class.forName(e.getPersistentClassName());
+            Object found = em.find(type, e.getIdentifier());
+            return found instanceof StoredEntity stored ? stored.getVersion() : null;
+        } catch (RuntimeException | ClassNotFoundException unreadable) {
+            return null;
+        }
     }
 
     @ExceptionHandler(org.springframework.security.access.AccessDeniedException.class)

@@ -1,6 +1,7 @@
 package org.skyrota.web.system;
 
 import java.time.Instant;
+import java.time.temporal.ChronoUnit;
 
 import jakarta.persistence.Column;
 import jakarta.persistence.GeneratedValue;
@@ -59,14 +60,19 @@ public abstract class StoredEntity {
         }
     }
 
+    /** Microseconds: what H2 and PostgreSQL keep, so that the answer to a write equals what a later read gives. */
+    private static Instant now() {
+        return Instant.now().truncatedTo(ChronoUnit.MICROS);
+    }
+
     @PrePersist
     void stampCreation() {
-        createdAt = Instant.now();
+        createdAt = now();
         updatedAt = createdAt;
     }
 
     @PreUpdate
     void stampUpdate() {
-        updatedAt = Instant.now();
+        updatedAt = now();
     }
 }

@@ -6,15 +6,21 @@ import org.springframework.context.annotation.Configuration;
 import org.springframework.core.convert.converter.Converter;
 import org.springframework.core.convert.converter.ConverterFactory;
 import org.springframework.format.FormatterRegistry;
+import org.springframework.web.servlet.config.annotation.InterceptorRegistry;
 import org.springframework.web.servlet.config.annotation.WebMvcConfigurer;
 
-/** Query parameters name enum values in lower case, as the JSON does ({@code ?state=submitted}). */
+/** Query parameters name enum values in lower case, as the JSON does ({@code ?state=submitted}); page limits. */
 @Configuration
 class WebConfig implements WebMvcConfigurer {
 
     @Override
     public void addFormatters(FormatterRegistry registry) {
         registry.addConverterFactory(new LowerCaseEnums());
+    }
+
+    @Override
+    public void addInterceptors(InterceptorRegistry registry) {
+        registry.addInterceptor(new RequestLimits.PageParameters()).addPathPatterns(RequestLimits.pagedPrefixes());
     }
 
     @SuppressWarnings({"rawtypes", "unchecked"})
