@@ -11,7 +11,7 @@ import org.optaplanner.core.api.score.buildin.hardmediumsoftlong.HardMediumSoftL
 /**
  * The weight of every score rule, adjustable per run: start from {@link #defaults()} and apply
  * {@link #withOverrides(Map)}. A weight of zero switches a rule off; moving "Program over grant" from the hard
- * to the medium level makes grants a strong wish instead of a limit. constraints/WEIGHTS.md explains each default.
+ * to the medium level makes grants a strong wish instead of a limit. The README, "Planner score rules and their default weights", explains each default.
  */
 @ConstraintConfiguration(constraintPackage = "org.skyrota.constraints")
 public final class PlannerWeights {

@@ -10,7 +10,7 @@ import org.optaplanner.core.api.score.buildin.hardmediumsoftlong.HardMediumSoftL
  *
  * @param timeLimit           stop after this long (not null)
  * @param unimprovedTimeLimit stop earlier when the best score has not improved for this long, or null
- * @param weightOverrides     rule name to weight, replacing the defaults for this run (see constraints/WEIGHTS.md)
+ * @param weightOverrides     rule name to weight, replacing the defaults for this run (see the README, "Planner score rules and their default weights")
  * @param randomSeed          seed of the solver's random choices, for repeatable runs
  * @param evaluationLimit     stop after this many score evaluations, or 0 for no such limit: with a fixed seed
  *                            this makes a run repeatable whatever the machine's load (tests use it)

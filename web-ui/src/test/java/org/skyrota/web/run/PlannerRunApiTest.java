@@ -185,7 +185,7 @@ class PlannerRunApiTest {
         Answer dry = api.post("/api/visits/" + id + "/unplace?dryRun=true&version=" + version, COORD, null);
         assertThat(dry.status()).as(dry.body()).isEqualTo(200);
         assertThat((Boolean) dry.json("$.dryRun")).isTrue();
-        // Leaving a placed visit out costs its priority-weighted minutes at the medium level (constraints/WEIGHTS.md).
+        // Leaving a placed visit out costs its priority-weighted minutes at the medium level (the README, "Planner score rules and their default weights").
         assertThat(medium(dry.json("$.scoreAfter"))).isLessThan(medium(dry.json("$.scoreBefore")));
         assertThat(draft().id("$.version")).isEqualTo(version);
         assertThat(draft().<List<String>>json("$.visits[*].id")).contains(id);
