@@ -1,5 +1,12 @@
 package org.skyrota.web.request;
 
+import static org.assertj.core.api.Assertions.assertThat;
+
+import java.sql.Connection;
+import javax.sql.DataSource;
+import org.junit.jupiter.api.Test;
+import org.springframework.beans.factory.annotation.Autowired;
+
 import java.sql.SQLException;
 
 import org.junit.jupiter.api.AfterAll;
@@ -22,5 +29,17 @@ class PostgresRequestApiTest extends RequestApiTest {
     @AfterAll
     static void dropSchema() throws SQLException {
         LocalPostgres.dropSchema(SCHEMA);
+    }
+
+    @Autowired
+    DataSource dataSource;
+
+    /** The inherited tests really talk to PostgreSQL in its own schema, not to a fallback database. */
+    @Test
+    void runsOnPostgresqlInItsOwnSchema() throws SQLException {
+        try (Connection c = dataSource.getConnection()) {
+            assertThat(c.getMetaData().getDatabaseProductName()).isEqualTo("PostgreSQL");
+            assertThat(c.getSchema()).isEqualTo(SCHEMA);
+        }
     }
 }
