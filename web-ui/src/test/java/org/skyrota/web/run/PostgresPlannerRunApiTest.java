@@ -1,8 +1,5 @@
 package org.skyrota.web.run;
 
-import static org.assertj.core.api.Assertions.assertThat;
-
-import java.sql.Connection;
 import javax.sql.DataSource;
 import org.junit.jupiter.api.Test;
 import org.springframework.beans.factory.annotation.Autowired;
@@ -37,9 +34,6 @@ class PostgresPlannerRunApiTest extends PlannerRunApiTest {
     /** The inherited tests really talk to PostgreSQL in its own schema, not to a fallback database. */
     @Test
     void runsOnPostgresqlInItsOwnSchema() throws SQLException {
-        try (Connection c = dataSource.getConnection()) {
-            assertThat(c.getMetaData().getDatabaseProductName()).isEqualTo("PostgreSQL");
-            assertThat(c.getSchema()).isEqualTo(SCHEMA);
-        }
+        LocalPostgres.assertRunsIn(dataSource, SCHEMA);
     }
 }

@@ -1,11 +1,15 @@
 package org.skyrota.web.support;
 
+import static org.assertj.core.api.Assertions.assertThat;
+
 import java.sql.Connection;
 import java.sql.DriverManager;
 import java.sql.SQLException;
 import java.sql.Statement;
 import java.util.Locale;
 import java.util.UUID;
+
+import javax.sql.DataSource;
 
 import org.springframework.test.context.DynamicPropertyRegistry;
 
@@ -56,5 +60,13 @@ public final class LocalPostgres {
     private static String env(String name, String fallback) {
         String value = System.getenv(name);
         return value == null || value.isBlank() ? fallback : value;
+    }
+
+    /** Asserts that {@code dataSource} really is PostgreSQL, in {@code schema}: no test silently falls back to H2. */
+    public static void assertRunsIn(DataSource dataSource, String schema) throws SQLException {
+        try (Connection c = dataSource.getConnection()) {
+            assertThat(c.getMetaData().getDatabaseProductName()).isEqualTo("PostgreSQL");
+            assertThat(c.getSchema()).isEqualTo(schema);
+        }
     }
 }
