@@ -42,12 +42,8 @@ export async function render(main) {
       page, size: PAGE_SIZE, sort: 'createdAt,desc', programId: f.programId.value, state: f.state.value,
       target: f.target.value.trim(), priority: f.priority.value,
     } });
-    let items = result.items;
+    const items = result.items;
     note.textContent = '';
-    if (f.priority.value && items.some(r => String(r.priority) !== f.priority.value)) {
-      // The server ignored the parameter: say so instead of filtering one page and hiding the rest.
-      note.textContent = 'Filtering by priority is not available yet on this server; showing all priorities.';
-    }
     const site = sites.find(s => String(s.id) === f.site.value);
     const rows = items.map(r => row(r, programName, site, load));
     clear(table, items.length === 0 ? el('p', {}, 'No requests match.') : el('table', { class: 'stack', id: 'queue-table' },

@@ -40,8 +40,9 @@ class RequestController {
                                @RequestParam(required = false) String owner,
                                @RequestParam(required = false) Long programId,
                                @RequestParam(required = false) String target,
+                               @RequestParam(required = false) Integer priority,
                                @PageableDefault(size = 50, sort = "createdAt", direction = Sort.Direction.DESC) Pageable pageable) {
-        return service.list(new RequestService.Filter(state, owner, programId, target), pageable);
+        return service.list(new RequestService.Filter(state, owner, programId, target, priority), pageable);
     }
 
     @GetMapping("/{id}")

@@ -38,13 +38,17 @@ public class RequestService {
     }
 
     /** What a listing may be narrowed to; null members do not narrow. */
-    record Filter(RequestState state, String owner, Long programId, String target) {}
+    record Filter(RequestState state, String owner, Long programId, String target, Integer priority) {}
 
     @Transactional(readOnly = true)
     public PageView<RequestView> list(Filter asked, Pageable pageable) {
+        if (asked.priority() != null && (asked.priority() < 1 || asked.priority() > 5)) {
+            throw new InvalidParametersException(List.of(new FieldProblem("priority", "must be 1 to 5: " + asked.priority())));
+        }
         CurrentUser user = CurrentUser.get();
         // A requester sees their own requests only, whatever they filter by.
-        Filter filter = user.reviewer() ? asked : new Filter(asked.state(), user.username(), asked.programId(), asked.target());
+        Filter filter = user.reviewer() ? asked
+                : new Filter(asked.state(), user.username(), asked.programId(), asked.target(), asked.priority());
         Specification<ObservingRequest> spec = (root, query, cb) -> {
             List<Predicate> where = new ArrayList<>();
             if (filter.state() != null) {
@@ -55,6 +59,9 @@ public class RequestService {
             }
             if (filter.programId() != null) {
                 where.add(cb.equal(root.get("program").get("id"), filter.programId()));
+            }
+            if (filter.priority() != null) {
+                where.add(cb.equal(root.get("priority"), filter.priority()));
             }
             if (filter.target() != null && !filter.target().isBlank()) {
                 where.add(cb.like(cb.lower(root.get("targetName")), "%" + filter.target().trim().toLowerCase() + "%"));

@@ -178,7 +178,7 @@ class RequestApiTest {
     }
 
     @Test
-    void listingFiltersByStateOwnerAndTargetAndSortsByPriority() throws Exception {
+    void listingFiltersByStateOwnerTargetAndPriorityAndSortsByPriority() throws Exception {
         for (int p = 1; p <= 5; p++) {
             long id = id(create("/api/requests", request("83.82", "-5.39", p)));
             if (p % 2 == 1) {
@@ -196,6 +196,11 @@ class RequestApiTest {
                 .andExpect(jsonPath("$.items[*].priority").value(contains(3, 4)));
         mvc.perform(get("/api/requests?programId=" + programId)).andExpect(jsonPath("$.totalItems").value(6));
         mvc.perform(get("/api/requests?state=lost")).andExpect(status().isBadRequest()).andExpect(jsonPath("$.parameter").value("state"));
+        mvc.perform(get("/api/requests?priority=3&sort=targetName"))
+                .andExpect(jsonPath("$.totalItems").value(2))
+                .andExpect(jsonPath("$.items[*].targetName").value(contains("M 31", "NGC 1976")));
+        mvc.perform(get("/api/requests?priority=6")).andExpect(status().isBadRequest()).andExpect(jsonPath("$.parameter").value("priority"));
+        mvc.perform(get("/api/requests?priority=high")).andExpect(status().isBadRequest()).andExpect(jsonPath("$.parameter").value("priority"));
     }
 
     @Test
