@@ -6,6 +6,8 @@ import java.util.List;
 import java.util.Map;
 import java.util.concurrent.ConcurrentHashMap;
 
+import org.slf4j.Logger;
+import org.slf4j.LoggerFactory;
 import org.springframework.http.MediaType;
 import org.springframework.stereotype.Component;
 import org.springframework.web.servlet.mvc.method.annotation.SseEmitter;
@@ -16,6 +18,8 @@ import org.springframework.web.servlet.mvc.method.annotation.SseEmitter;
  */
 @Component
 class RunEvents {
+
+    private static final Logger log = LoggerFactory.getLogger(RunEvents.class);
 
     /** How long a stream may stay open beyond the run's own time limit. */
     private static final long SLACK_MILLIS = 120_000;
@@ -39,6 +43,15 @@ class RunEvents {
     SseEmitter subscribe(long runId, int timeLimitSeconds, String doneIfEnded) {
         SseEmitter emitter = new SseEmitter(timeLimitSeconds * 1000L + SLACK_MILLIS);
         Channel ch = channel(runId);
+        // The callbacks go on before the emitter is shared, so that none of its endings can be missed.
+        Runnable remove = () -> {
+            synchronized (ch) {
+                ch.emitters.remove(emitter);
+            }
+        };
+        emitter.onCompletion(remove);
+        emitter.onTimeout(remove);
+        emitter.onError(e -> remove.run());
         synchronized (ch) {
             if (ch.lastProgress != null) {
                 send(emitter, "progress", ch.lastProgress);
@@ -51,14 +64,6 @@ class RunEvents {
             }
             ch.emitters.add(emitter);
         }
-        Runnable remove = () -> {
-            synchronized (ch) {
-                ch.emitters.remove(emitter);
-            }
-        };
-        emitter.onCompletion(remove);
-        emitter.onTimeout(remove);
-        emitter.onError(e -> remove.run());
         return emitter;
     }
 
@@ -66,7 +71,14 @@ class RunEvents {
         Channel ch = channel(runId);
         synchronized (ch) {
             ch.lastProgress = data;
-            ch.emitters.removeIf(e -> !send(e, "progress", data));
+            ch.emitters.removeIf(e -> {
+                if (send(e, "progress", data)) {
+                    return false;
+                }
+                // Close it rather than leave the reader waiting for a done that would never come.
+                closeQuietly(e);
+                return true;
+            });
         }
     }
 
@@ -75,9 +87,8 @@ class RunEvents {
         synchronized (ch) {
             ch.done = data;
             for (SseEmitter e : ch.emitters) {
-                if (send(e, "done", data)) {
-                    e.complete();
-                }
+                send(e, "done", data);
+                closeQuietly(e);
             }
             ch.emitters.clear();
         }
@@ -89,7 +100,16 @@ class RunEvents {
             return true;
         } catch (IOException | IllegalStateException e) {
             // the reader went away; the run goes on
+            log.debug("Could not send {} to a run's event stream: {}", name, e.toString());
             return false;
+        }
+    }
+
+    private static void closeQuietly(SseEmitter emitter) {
+        try {
+            emitter.complete();
+        } catch (IllegalStateException e) {
+            log.debug("Event stream already closed: {}", e.toString());
         }
     }
 }

@@ -314,8 +314,22 @@ public class RunService {
             });
         } catch (OptimisticLockingFailureException e) {
             log.debug("Run {} was ended by someone else at the same moment", id);
+        } catch (RuntimeException e) {
+            // The database may be what failed; the readers of the stream still hear that the run is over.
+            log.warn("Could not record the end of planner run {}", id, e);
         }
-        events.done(id, doneData(find(id)));
+        String done;
+        try {
+            done = doneData(find(id));
+        } catch (RuntimeException e) {
+            Map<String, Object> m = new LinkedHashMap<>();
+            m.put("state", how.apiName());
+            m.put("score", score);
+            m.put("message", message);
+            m.put("revision", null);
+            done = json.writeValueAsString(m);
+        }
+        events.done(id, done);
     }
 
     private String progressData(Progress p, long limitNanos) {

@@ -52,7 +52,7 @@ class ConcurrentOverridesTest {
         Answer run = api.post("/api/planner/runs", coord, "{\"firstNight\":\"" + PlanningNetwork.FIRST_NIGHT
                 + "\",\"lastNight\":\"" + PlanningNetwork.LAST_NIGHT + "\",\"seconds\":2}");
         assertThat(run.status()).as(run.body()).isEqualTo(202);
-        api.events("/api/planner/runs/" + run.id("$.id") + "/events", coord, "done", Duration.ofSeconds(120));
+        assertThat((String) api.awaitRunEnd(run.id("$.id"), coord, Duration.ofSeconds(180)).json("$.state")).isEqualTo("finished");
 
         Answer draft = api.get("/api/plans/draft", coord);
         long revision = draft.id("$.revision");

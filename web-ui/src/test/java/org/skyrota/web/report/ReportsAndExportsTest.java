@@ -19,6 +19,7 @@ import net.fortuna.ical4j.model.component.VEvent;
 
 import org.apache.commons.csv.CSVFormat;
 import org.apache.commons.csv.CSVRecord;
+import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.BeforeEach;
 import org.junit.jupiter.api.Test;
 import org.skyrota.web.account.Account;
@@ -26,7 +27,6 @@ import org.skyrota.web.account.AccountRepository;
 import org.skyrota.web.account.Role;
 import org.skyrota.web.support.ApiClient;
 import org.skyrota.web.support.ApiClient.Answer;
-import org.skyrota.web.support.ApiClient.Event;
 import org.skyrota.web.support.PlanningNetwork;
 import org.springframework.beans.factory.annotation.Autowired;
 import org.springframework.boot.test.context.SpringBootTest;
@@ -56,6 +56,14 @@ class ReportsAndExportsTest {
     static PlanningNetwork network;
     static Answer published;
 
+    // The fields are shared by this class and its PostgreSQL variant: each class starts from nothing, so that one
+    // never reads the other's plan.
+    @BeforeAll
+    static void forgetTheOtherDatabasesPlan() {
+        network = null;
+        published = null;
+    }
+
     @BeforeEach
     void setUp() {
         api = new ApiClient(port);
@@ -64,7 +72,11 @@ class ReportsAndExportsTest {
             accounts.save(new Account("repcoord", encoder.encode("password1"), Role.COORDINATOR));
             accounts.save(new Account("repstudent", encoder.encode("password1"), Role.REQUESTER));
             accounts.save(new Account("repother", encoder.encode("password1"), Role.REQUESTER));
+        }
+        if (network == null) {
             network = PlanningNetwork.create(api, COORD, STUDENT, OTHER, "E");
+        }
+        if (published == null) {
             published = runAndPublish();
         }
     }
@@ -73,8 +85,8 @@ class ReportsAndExportsTest {
         Answer started = api.post("/api/planner/runs", COORD, "{\"firstNight\":\"" + PlanningNetwork.FIRST_NIGHT
                 + "\",\"lastNight\":\"" + PlanningNetwork.LAST_NIGHT + "\",\"seconds\":1}");
         assertThat(started.status()).as(started.body()).isEqualTo(202);
-        List<Event> events = api.events("/api/planner/runs/" + started.id("$.id") + "/events", COORD, "done", Duration.ofSeconds(60));
-        assertThat((String) JsonPath.read(events.get(events.size() - 1).data(), "$.state")).isEqualTo("finished");
+        Answer run = api.awaitRunEnd(started.id("$.id"), COORD, Duration.ofSeconds(180));
+        assertThat((String) run.json("$.state")).as(run.body()).isEqualTo("finished");
         Answer draft = api.get("/api/plans/draft", COORD);
         Answer p = api.post("/api/plans/draft/publish?revision=" + draft.id("$.revision"), COORD, null);
         assertThat(p.status()).isEqualTo(200);
@@ -161,7 +173,7 @@ class ReportsAndExportsTest {
 
         Answer started = api.post("/api/planner/runs", COORD, "{\"firstNight\":\"" + PlanningNetwork.FIRST_NIGHT
                 + "\",\"lastNight\":\"" + PlanningNetwork.LAST_NIGHT + "\",\"seconds\":1}");
-        api.events("/api/planner/runs/" + started.id("$.id") + "/events", COORD, "done", Duration.ofSeconds(60));
+        assertThat((String) api.awaitRunEnd(started.id("$.id"), COORD, Duration.ofSeconds(180)).json("$.state")).isEqualTo("finished");
         Answer draft = api.get("/api/plans/draft", COORD);
         List<String> inDraft = draft.json("$.visits[*].id");
         inDraft.addAll(draft.json("$.unplaced[*].visitId"));

@@ -87,10 +87,35 @@ public final class ApiClient {
     }
 
     /** Reads a {@code text/event-stream} until the event named {@code last} (inclusive) or the stream ends. */
+    /**
+     * Waits, by reading the run's stored state, until planner run {@code runId} has ended; returns its final view.
+     * For tests that need a finished run, not its event stream (which PlannerRunApiTest checks).
+     */
+    public Answer awaitRunEnd(long runId, String auth, Duration timeout) {
+        long until = System.nanoTime() + timeout.toNanos();
+        while (true) {
+            Answer run = get("/api/planner/runs/" + runId, auth);
+            String state = run.status() == 200 ? run.json("$.state") : null;
+            if (state != null && !state.equals("queued") && !state.equals("running")) {
+                return run;
+            }
+            if (System.nanoTime() > until) {
+                throw new IllegalStateException("planner run " + runId + " had not ended after " + timeout + ": " + run.body());
+            }
+            try {
+                Thread.sleep(100);
+            } catch (InterruptedException e) {
+                Thread.currentThread().interrupt();
+                throw new IllegalStateException(e);
+            }
+        }
+    }
+
     public List<Event> events(String path, String auth, String last, Duration timeout) {
         HttpRequest request = HttpRequest.newBuilder(URI.create(base + path)).timeout(timeout)
                 .header("Authorization", auth).header("Accept", "text/event-stream").GET().build();
         List<Event> events = new ArrayList<>();
+        long startNanos = System.nanoTime();
         try {
             HttpResponse<java.io.InputStream> r = http.send(request, HttpResponse.BodyHandlers.ofInputStream());
             if (r.statusCode() != 200) {
@@ -120,9 +145,15 @@ public final class ApiClient {
                     }
                 }
             }
-            return events;
+            if (last == null) {
+                return events;
+            }
+            throw new IllegalStateException("event stream " + path + " ended after "
+                    + Duration.ofNanos(System.nanoTime() - startNanos).toSeconds() + " s without a '" + last
+                    + "' event; it sent " + events);
         } catch (IOException e) {
-            throw new IllegalStateException("event stream " + path + " failed", e);
+            throw new IllegalStateException("event stream " + path + " failed after "
+                    + Duration.ofNanos(System.nanoTime() - startNanos).toSeconds() + " s; it sent " + events, e);
         } catch (InterruptedException e) {
             Thread.currentThread().interrupt();
             throw new IllegalStateException(e);
