@@ -62,7 +62,7 @@ class SecurityConfig {
                         .requestMatchers("/api/tokens", "/api/tokens/**").hasRole(REVIEWER_ROLES_ADMIN)
                         .requestMatchers("/api/accounts", "/api/accounts/**").hasRole(REVIEWER_ROLES_ADMIN)
                         .requestMatchers("/api/audit", "/api/audit/**").hasAnyRole(REVIEWER_ROLES_COORDINATOR, REVIEWER_ROLES_ADMIN)
-                        .requestMatchers("/api/planner/**", "/api/visits/**").hasAnyRole(REVIEWER_ROLES_COORDINATOR, REVIEWER_ROLES_ADMIN)
+                        .requestMatchers("/api/planner/**", "/api/visits/**", "/api/alerts").hasAnyRole(REVIEWER_ROLES_COORDINATOR, REVIEWER_ROLES_ADMIN)
                         .requestMatchers(HttpMethod.GET, "/api/plans/**").authenticated()
                         .requestMatchers("/api/plans/**").hasAnyRole(REVIEWER_ROLES_COORDINATOR, REVIEWER_ROLES_ADMIN)
                         .requestMatchers(HttpMethod.GET, REFERENCE_DATA).authenticated()

@@ -1,5 +1,6 @@
 package org.skyrota.web.plugin;
 
+import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
 
@@ -11,6 +12,7 @@ import org.slf4j.LoggerFactory;
 import org.springframework.beans.factory.annotation.Value;
 import org.springframework.context.annotation.Bean;
 import org.springframework.context.annotation.Configuration;
+import org.springframework.core.env.Environment;
 
 /**
  * The plugins of this server: those on the class path (the bundled ones) and the jars in {@code <data-dir>/plugins}.
@@ -26,8 +28,26 @@ class PluginsConfig {
         return PluginJars.open(Path.of(dataDir, "plugins"), PluginsConfig.class.getClassLoader());
     }
 
+    /**
+     * The bundled plugins read their settings from system properties when the service loader makes them; these are
+     * the server's settings of the same names (command line, environment, application properties), copied over
+     * first. The conditions file defaults to {@code <data-dir>/conditions.csv} when that file exists.
+     */
+    static final List<String> PLUGIN_SETTINGS = List.of("skyrota.conditions.file", "skyrota.voevent.program",
+            "skyrota.voevent.allow-test");
+
     @Bean
-    PluginRegistry pluginRegistry(PluginJars jars) {
+    PluginRegistry pluginRegistry(PluginJars jars, Environment environment) {
+        for (String name : PLUGIN_SETTINGS) {
+            String value = environment.getProperty(name);
+            if (value != null && !value.isBlank()) {
+                System.setProperty(name, value);
+            }
+        }
+        Path conditions = Path.of(environment.getProperty("skyrota.data-dir", "./skyrota-data"), "conditions.csv");
+        if (environment.getProperty("skyrota.conditions.file") == null && Files.isRegularFile(conditions)) {
+            System.setProperty("skyrota.conditions.file", conditions.toString());
+        }
         PluginRegistry registry;
         try {
             registry = PluginRegistry.load(jars.classLoader(), jars.problems(), PluginRegistry.CORE_SERVICES);

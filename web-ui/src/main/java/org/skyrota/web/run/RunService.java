@@ -26,6 +26,7 @@ import org.skyrota.planning.solver.Planner;
 import org.skyrota.planning.solver.Progress;
 import org.skyrota.planning.solver.SolveOptions;
 import org.skyrota.web.account.CurrentUser;
+import org.skyrota.web.plan.ConditionsClosures;
 import org.skyrota.web.plan.PlanInputs;
 import org.skyrota.web.plan.PlanNight;
 import org.skyrota.web.plan.PlannerConfig;
@@ -68,6 +69,7 @@ public class RunService {
     private final PlanRevisionRepository revisions;
     private final PlanInputs inputs;
     private final PlannerConfig planners;
+    private final ConditionsClosures conditions;
     private final RunEvents events;
     private final AuditLog audit;
     private final JsonMapper json;
@@ -77,7 +79,9 @@ public class RunService {
     private final Set<Long> cancelling = ConcurrentHashMap.newKeySet();
 
     RunService(PlannerRunRepository runs, PlanRevisionRepository revisions, PlanInputs inputs, PlannerConfig planners,
-               RunEvents events, AuditLog audit, JsonMapper json, PlatformTransactionManager transactions) {
+               RunEvents events, AuditLog audit, JsonMapper json, PlatformTransactionManager transactions,
+               ConditionsClosures conditions) {
+        this.conditions = conditions;
         this.runs = runs;
         this.revisions = revisions;
         this.inputs = inputs;
@@ -220,10 +224,21 @@ public class RunService {
                     .map(Long::valueOf).collect(Collectors.toSet());
             LocalDate first = run.getFirstNight();
             LocalDate last = run.getLastNight();
+            List<PlanNight> fed = new ArrayList<>();
+            List<String> feedNotes = new ArrayList<>();
             PlanningMapper.Mapped mapped = tx.execute(status -> {
                 PlanRevision draft = revisions.findFirstByStateOrderByIdDesc(PlanRevision.State.DRAFT).orElse(null);
                 List<PlanVisit> pins = new ArrayList<>();
                 List<PlanNight> nights = new ArrayList<>();
+                ConditionsClosures.Closures closures = conditions.between(first, last);
+                feedNotes.addAll(closures.notes());
+                for (PlanNight n : closures.nights()) {
+                    // A coordinator's own lock or closure of that night stands.
+                    if (draft == null || draft.getNights().stream().noneMatch(d -> d.is(n.getTelescopeId(), n.getNight()))) {
+                        fed.add(n);
+                    }
+                }
+                nights.addAll(fed);
                 if (draft != null) {
                     nights.addAll(draft.getNights());
                     for (PlanVisit v : draft.getVisits()) {
@@ -242,7 +257,7 @@ public class RunService {
                 endIfActive(id, RunState.CANCELLED, result.score().toString(), "cancelled");
                 return;
             }
-            tx.executeWithoutResult(status -> writeDraft(id, mapped, result, first, last));
+            tx.executeWithoutResult(status -> writeDraft(id, mapped, result, first, last, fed, feedNotes));
             events.done(id, doneData(find(id)));
         } catch (RuntimeException | Error e) {
             boolean cancelled = cancelling.contains(id);
@@ -267,7 +282,8 @@ public class RunService {
      * The new draft: the run's visits, plus the old draft's placements the run did not cover (other nights, other
      * sites, or kept by a pin); the old draft is retired. The published plan is not touched.
      */
-    private void writeDraft(long id, PlanningMapper.Mapped mapped, PlanResult result, LocalDate first, LocalDate last) {
+    private void writeDraft(long id, PlanningMapper.Mapped mapped, PlanResult result, LocalDate first, LocalDate last,
+                            List<PlanNight> fed, List<String> feedNotes) {
         PlannerRun run = find(id);
         PlanRevision old = revisions.findFirstByStateOrderByIdDesc(PlanRevision.State.DRAFT).orElse(null);
         Map<VisitKey, PlanVisit> visits = new LinkedHashMap<>();
@@ -292,6 +308,7 @@ public class RunService {
             draft.widenTo(old.getFirstNight(), old.getLastNight());
             old.setState(PlanRevision.State.RETIRED);
         }
+        fed.forEach(n -> draft.getNights().add(n.copy()));
         draft.getVisits().addAll(visits.values());
         draft.setScore(result.score().toString());
         draft.setRunId(id);
@@ -299,7 +316,9 @@ public class RunService {
         long placed = result.planned().size();
         run.end(RunState.FINISHED, Instant.now(), result.score().toString(),
                 "placed " + placed + " of " + (placed + result.leftOut().size()) + " visits"
-                        + (result.hardViolations().isEmpty() ? "" : "; hard rules broken: " + result.hardViolations().size()));
+                        + (result.hardViolations().isEmpty() ? "" : "; hard rules broken: " + result.hardViolations().size())
+                        + (fed.isEmpty() ? "" : "; telescope nights closed by conditions feeds: " + fed.size())
+                        + (feedNotes.isEmpty() ? "" : "; " + String.join("; ", feedNotes)));
         run.setRevisionId(draft.getId());
     }
 

@@ -67,14 +67,19 @@ public final class ApiClient {
     }
 
     public Answer send(String method, String path, String auth, String json) {
+        return send(method, path, auth, json, "application/json");
+    }
+
+    /** Sends {@code body} (when not null) as {@code contentType}. */
+    public Answer send(String method, String path, String auth, String body, String contentType) {
         HttpRequest.Builder b = HttpRequest.newBuilder(URI.create(base + path)).timeout(Duration.ofSeconds(120));
         if (auth != null) {
             b.header("Authorization", auth);
         }
-        if (json != null) {
-            b.header("Content-Type", "application/json");
+        if (body != null) {
+            b.header("Content-Type", contentType);
         }
-        b.method(method, json == null ? HttpRequest.BodyPublishers.noBody() : HttpRequest.BodyPublishers.ofString(json));
+        b.method(method, body == null ? HttpRequest.BodyPublishers.noBody() : HttpRequest.BodyPublishers.ofString(body));
         try {
             HttpResponse<String> r = http.send(b.build(), HttpResponse.BodyHandlers.ofString());
             return new Answer(r.statusCode(), r.headers().firstValue("Content-Type").orElse(""), r.body());
@@ -86,7 +91,6 @@ public final class ApiClient {
         }
     }
 
-    /** Reads a {@code text/event-stream} until the event named {@code last} (inclusive) or the stream ends. */
     /**
      * Waits, by reading the run's stored state, until planner run {@code runId} has ended; returns its final view.
      * For tests that need a finished run, not its event stream (which PlannerRunApiTest checks).
@@ -111,6 +115,10 @@ public final class ApiClient {
         }
     }
 
+    /**
+     * Reads a {@code text/event-stream} until the event named {@code last} (inclusive); a stream that ends before it
+     * is an error that says what it sent.
+     */
     public List<Event> events(String path, String auth, String last, Duration timeout) {
         HttpRequest request = HttpRequest.newBuilder(URI.create(base + path)).timeout(timeout)
                 .header("Authorization", auth).header("Accept", "text/event-stream").GET().build();

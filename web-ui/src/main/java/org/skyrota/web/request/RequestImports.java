@@ -1,0 +1,141 @@
+package org.skyrota.web.request;
+
+import java.io.IOException;
+import java.io.InputStream;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import java.util.Optional;
+
+import jakarta.validation.ConstraintViolation;
+import jakarta.validation.Validator;
+
+import org.skyrota.plugin.ImportProblem;
+import org.skyrota.plugin.ImportResult;
+import org.skyrota.plugin.PluginRegistry;
+import org.skyrota.plugin.RequestImporter;
+import org.skyrota.plugin.RequestRecord;
+import org.skyrota.web.program.Program;
+import org.skyrota.web.program.ProgramRepository;
+import org.skyrota.web.system.FieldProblem;
+import org.skyrota.web.system.InvalidParametersException;
+import org.springframework.stereotype.Service;
+import org.springframework.transaction.PlatformTransactionManager;
+import org.springframework.transaction.support.TransactionTemplate;
+
+/**
+ * Requests read from a file by a request-importer plugin, stored all together or not at all: every problem, the
+ * importer's (by line) and the server's (by record), is reported in one answer.
+ */
+@Service
+public class RequestImports {
+
+    private final PluginRegistry plugins;
+    private final RequestService requests;
+    private final ProgramRepository programs;
+    private final Validator validator;
+    private final TransactionTemplate tx;
+
+    RequestImports(PluginRegistry plugins, RequestService requests, ProgramRepository programs, Validator validator,
+                   PlatformTransactionManager transactions) {
+        this.plugins = plugins;
+        this.requests = requests;
+        this.programs = programs;
+        this.validator = validator;
+        this.tx = new TransactionTemplate(transactions);
+    }
+
+    /** The media types some importer reads. */
+    public List<String> mediaTypes() {
+        return plugins.requestImporters().stream().map(RequestImporter::mediaType).distinct().toList();
+    }
+
+    public Optional<RequestImporter> importer(String mediaType) {
+        return plugins.requestImporter(mediaType);
+    }
+
+    /**
+     * Reads the file with {@code importer} and stores every request as a draft of its owner, or none.
+     *
+     * @return the stored requests, in the file's order
+     * @throws InvalidParametersException listing every problem; then nothing is stored
+     */
+    public List<RequestView> importAll(RequestImporter importer, InputStream in) throws IOException {
+        ImportResult read = importer.read(in);
+        if (!read.isAccepted()) {
+            throw new InvalidParametersException(read.problems().stream().map(RequestImports::problem).toList());
+        }
+        if (read.requests().isEmpty()) {
+            throw new InvalidParametersException(List.of(new FieldProblem("file", "holds no requests")));
+        }
+        List<FieldProblem> problems = new ArrayList<>();
+        List<RequestView> stored = tx.execute(status -> {
+            List<RequestView> out = new ArrayList<>();
+            for (int i = 0; i < read.requests().size(); i++) {
+                String where = "record " + (i + 1) + ": ";
+                try {
+                    RequestForm form = form(read.requests().get(i), where);
+                    out.add(requests.create(form));
+                } catch (InvalidParametersException e) {
+                    e.problems().forEach(p -> problems.add(p.field().startsWith("record ") ? p
+                            : new FieldProblem(where + p.field(), p.message())));
+                }
+            }
+            if (!problems.isEmpty()) {
+                status.setRollbackOnly();
+            }
+            return out;
+        });
+        if (!problems.isEmpty()) {
+            throw new InvalidParametersException(problems);
+        }
+        return stored;
+    }
+
+    /** The form a user would have sent for {@code r}, checked as the form is. */
+    RequestForm form(RequestRecord r, String where) {
+        List<FieldProblem> problems = new ArrayList<>();
+        if (r.targetKind() != null && !r.targetKind().isBlank() && !r.targetKind().equalsIgnoreCase("fixed")) {
+            problems.add(new FieldProblem(where + "targetKind", "only fixed ICRS targets can be requested through the server: "
+                    + r.targetKind()));
+        }
+        Long programId = program(r.program()).map(Program::getId).orElse(null);
+        if (programId == null) {
+            problems.add(new FieldProblem(where + "program", "names no stored program (by code or title): " + r.program()));
+        }
+        DarknessLimit darkness = null;
+        if (r.darkness() != null && !r.darkness().isBlank()) {
+            try {
+                darkness = DarknessLimit.valueOf(r.darkness().trim().toUpperCase(Locale.ROOT));
+            } catch (IllegalArgumentException e) {
+                problems.add(new FieldProblem(where + "darkness", "must be astronomical, nautical or civil: " + r.darkness()));
+            }
+        }
+        RequestForm form = new RequestForm(null, programId == null ? -1L : programId, r.owner(), r.targetName(),
+                r.raDeg() == null ? null : Double.toString(r.raDeg()), r.decDeg() == null ? null : Double.toString(r.decDeg()),
+                r.exposures().stream().map(e -> new RequestForm.ExposureForm(e.filter(), e.seconds(), e.count())).toList(),
+                r.minAltitudeDeg(), darkness, r.minMoonSeparationDeg(), r.maxMoonIllumination(), r.earliestNight(),
+                r.latestNight(), r.repeats(), r.priority());
+        for (ConstraintViolation<RequestForm> v : validator.validate(form)) {
+            problems.add(new FieldProblem(where + v.getPropertyPath(), v.getMessage()));
+        }
+        if (!problems.isEmpty()) {
+            throw new InvalidParametersException(problems);
+        }
+        return form;
+    }
+
+    private Optional<Program> program(String codeOrTitle) {
+        if (codeOrTitle == null || codeOrTitle.isBlank()) {
+            return Optional.empty();
+        }
+        String wanted = codeOrTitle.trim();
+        return programs.findAll().stream()
+                .filter(p -> wanted.equalsIgnoreCase(p.getCode()) || wanted.equalsIgnoreCase(p.getTitle()))
+                .findFirst();
+    }
+
+    private static FieldProblem problem(ImportProblem p) {
+        return new FieldProblem("line " + p.line() + (p.field() == null ? "" : ": " + p.field()), p.message());
+    }
+}
