@@ -40,7 +40,8 @@ import java.util.regex.Pattern;
  * published plan ({@code GET /api/plans/published}), published beforehand from a short planner run. A 5 s warm-up
  * (the same mix, not counted) comes first. Afterwards every acknowledged submission, warm-up ones included, is read
  * back by id; {@code lost} counts those missing or changed. {@code errors} counts answers other than 2xx and calls
- * that got no answer.
+ * that got no answer. With {@code --pace=N} each client sends N calls a second on a fixed schedule instead of
+ * one after another, and a call's latency counts from when it was due.
  */
 public final class LoadBench {
 
@@ -52,6 +53,9 @@ public final class LoadBench {
         int clients = Integer.parseInt(opts.getOrDefault("clients", "100"));
         int seconds = Integer.parseInt(opts.getOrDefault("seconds", "60"));
         int warmupSeconds = Integer.parseInt(opts.getOrDefault("warmup", "5"));
+        // 0: closed loop, every client sends its next call as soon as the last is answered. Above 0: each client
+        // sends that many calls a second on a fixed schedule, as a person or a script with think time does.
+        double pace = Double.parseDouble(opts.getOrDefault("pace", "0"));
         Path jar = Path.of(opts.getOrDefault("jar", "web-ui/target/skyrota.jar"));
         if (!Files.isRegularFile(jar)) {
             throw new IllegalStateException("no server jar at " + jar.toAbsolutePath() + "; build it with mvn -pl web-ui -am package");
@@ -87,10 +91,10 @@ public final class LoadBench {
                     port, clients, setup.publishedVisits);
 
             ConcurrentLinkedQueue<long[]> acknowledged = new ConcurrentLinkedQueue<>();
-            phase(pool, setup, clients, warmupSeconds, acknowledged, null);
+            phase(pool, setup, clients, warmupSeconds, pace, acknowledged, null);
             Stats stats = new Stats();
             long start = System.nanoTime();
-            phase(pool, setup, clients, seconds, acknowledged, stats);
+            phase(pool, setup, clients, seconds, pace, acknowledged, stats);
             double elapsed = (System.nanoTime() - start) / 1e9;
 
             long lost = verify(pool, setup, acknowledged);
@@ -99,9 +103,10 @@ public final class LoadBench {
             System.err.printf(Locale.ROOT, "load: %d calls (%d submissions, %d queue reads, %d plan reads), %d acknowledged submissions checked%n",
                     latencies.length, stats.submissions.get(), stats.queueReads.get(), stats.planReads.get(), acknowledged.size());
             System.out.printf(Locale.ROOT, "BENCH load requestsPerSecond=%.1f p50Ms=%.2f p99Ms=%.2f errors=%d lost=%d clients=%d seconds=%d"
-                            + " submissions=%d acknowledged=%d%n",
+                            + " submissions=%d acknowledged=%d pacePerClient=%s%n",
                     latencies.length / elapsed, percentile(latencies, 0.50) / 1e6, percentile(latencies, 0.99) / 1e6,
-                    stats.errors.get(), lost, clients, seconds, stats.submissions.get(), acknowledged.size());
+                    stats.errors.get(), lost, clients, seconds, stats.submissions.get(), acknowledged.size(),
+                    pace > 0 ? String.format(Locale.ROOT, "%.1f", pace) : "closed-loop");
         } finally {
             pool.shutdownNow();
             server.destroy();
@@ -253,8 +258,10 @@ public final class LoadBench {
     }
 
     /** Every client runs the mix for {@code seconds}; with {@code stats} null nothing is counted (warm-up). */
-    private static void phase(ExecutorService pool, Setup setup, int clients, int seconds,
+    private static void phase(ExecutorService pool, Setup setup, int clients, int seconds, double pace,
                               ConcurrentLinkedQueue<long[]> acknowledged, Stats stats) throws Exception {
+        long intervalNanos = pace > 0 ? Math.round(1e9 / pace) : 0;
+        long phaseStart = System.nanoTime();
         long end = System.nanoTime() + TimeUnit.SECONDS.toNanos(seconds);
         CountDownLatch ready = new CountDownLatch(clients);
         List<Future<?>> futures = new ArrayList<>();
@@ -267,9 +274,28 @@ public final class LoadBench {
                 long[] lat = new long[1 << 16];
                 int n = 0;
                 ready.countDown();
+                // Paced clients start at spread-out moments, so that they do not all call in the same instant.
+                long scheduled = phaseStart + (intervalNanos == 0 ? 0 : random.nextLong(intervalNanos));
                 while (System.nanoTime() < end) {
                     int pick = random.nextInt(100);
-                    long t0 = System.nanoTime();
+                    long t0;
+                    if (intervalNanos > 0) {
+                        long wait = scheduled - System.nanoTime();
+                        if (wait > 0) {
+                            try {
+                                TimeUnit.NANOSECONDS.sleep(wait);
+                            } catch (InterruptedException e) {
+                                Thread.currentThread().interrupt();
+                                return;
+                            }
+                        }
+                        // Latency counts from the moment the call was due, not from when it went out: a server
+                        // that falls behind cannot hide its queue by slowing the clients down.
+                        t0 = scheduled;
+                        scheduled += intervalNanos;
+                    } else {
+                        t0 = System.nanoTime();
+                    }
                     boolean ok;
                     long ackedId = -1;
                     String name = null;
