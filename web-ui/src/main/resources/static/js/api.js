@@ -256,9 +256,10 @@ export function decText(decDeg) {
 /** The session: `{username, role}` or null; `auth` false when the server has no sign-in at all. */
 export const session = { user: null, auth: true, demo: false };
 
-// The server answers a signed-out call with 401 and `WWW-Authenticate: Basic`, on which browsers
-// open their own password dialog (and headless ones stall). So the dashboard asks who is signed in
-// only when it signed someone in itself: a marker (no secret) in localStorage.
+// The server answers a signed-out call with 401; without the X-Requested-With mark it adds
+// `WWW-Authenticate: Basic`, on which browsers open their own password dialog. Every call here is
+// marked, and the dashboard still asks who is signed in only when it signed someone in itself (a
+// marker, no secret, in localStorage), which saves a call on every page load of a signed-out visitor.
 const SIGNED_IN = 'skyrota.signedIn';
 
 export function markSignedIn(on) {

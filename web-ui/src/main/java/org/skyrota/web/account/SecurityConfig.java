@@ -100,7 +100,11 @@ class SecurityConfig {
 
     private static void unauthorized(HttpServletRequest request, HttpServletResponse response,
                                      org.springframework.security.core.AuthenticationException e) throws IOException {
-        response.setHeader("WWW-Authenticate", "Basic realm=\"Skyrota\"");
+        // A script's call from the dashboard (marked X-Requested-With) gets no Basic challenge, on which a browser
+        // would open its own password dialog over the page; everyone else is told how to sign in.
+        if (!"XMLHttpRequest".equals(request.getHeader("X-Requested-With"))) {
+            response.setHeader("WWW-Authenticate", "Basic realm=\"Skyrota\"");
+        }
         problem(request, response, 401, "Unauthorized", "Sign in (HTTP Basic, or a browser session) to use this.");
     }
 

@@ -94,6 +94,11 @@ class SecurityTest {
         assertThat(refused.getRequest().getSession(false)).as("no session opened for a refused API call").isNull();
         mvc.perform(get("/api/sites").with(httpBasic("ada", "wrong"))).andExpect(status().isUnauthorized());
         mvc.perform(get("/api/sites").with(as("ada"))).andExpect(status().isOk());
+        // The dashboard's own calls are refused without the challenge that would open the browser's password dialog.
+        mvc.perform(get("/api/sites").header("X-Requested-With", "XMLHttpRequest"))
+                .andExpect(status().isUnauthorized())
+                .andExpect(header().doesNotExist("WWW-Authenticate"))
+                .andExpect(content().contentTypeCompatibleWith(MediaType.APPLICATION_PROBLEM_JSON));
     }
 
     @Test
