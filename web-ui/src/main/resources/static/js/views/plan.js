@@ -101,9 +101,25 @@ function grid(ctx, draft, firstNight, nightCount) {
 function nightMenu(ctx, telescope, night, state) {
   const sel = el('select', { 'aria-label': `Night ${night} on ${telescope.name}`, class: 'night-state' },
     ['open', 'locked', 'closed'].map(s => el('option', { value: s, selected: state === s }, s)));
-  sel.addEventListener('change', () => change(ctx, '/api/plans/draft/nights', { method: 'PUT',
-    body: { telescopeId: telescope.id, night, state: sel.value } }, `${telescope.name}, night ${night}: ${sel.value}.`));
-  return sel;
+  const send = reason => change(ctx, '/api/plans/draft/nights', { method: 'PUT',
+    body: { telescopeId: telescope.id, night, state: sel.value, ...(reason ? { reason } : {}) } },
+    `${telescope.name}, night ${night}: ${sel.value}${reason ? ` (${reason})` : ''}.`);
+  // Closing asks why (weather, maintenance), so that the plan shows the reason to everyone who reads it.
+  const reason = el('input', { type: 'text', class: 'night-reason', maxlength: 500, size: 12, placeholder: 'why (optional)',
+    'aria-label': `Why night ${night} on ${telescope.name} is closed` });
+  const confirm = el('button', { type: 'submit', class: 'secondary' }, 'Close the night');
+  const ask = el('form', { class: 'night-close', hidden: true }, reason, confirm);
+  ask.addEventListener('submit', e => { e.preventDefault(); send(reason.value.trim()); });
+  sel.addEventListener('change', () => {
+    if (sel.value === 'closed') {
+      ask.hidden = false;
+      reason.focus();
+    } else {
+      ask.hidden = true;
+      send(null);
+    }
+  });
+  return el('div', { class: 'night-menu' }, sel, ask);
 }
 
 /** Sends an override against the draft version read; a 409 means someone changed the plan meanwhile. */
