@@ -84,7 +84,8 @@ class RequestApiTest {
         return """
                 {"programId":%d,"owner":"student","targetName":"NGC 1976","ra":%s,"dec":%s,
                  "exposures":[{"filter":"V","seconds":60,"count":10},{"filter":"R","seconds":45,"count":5}],
-                 "maxMoonIllumination":0.6,"earliestNight":"2027-01-10","latestNight":"2027-02-10","repeats":2,"priority":%d}"""
+                 "maxMoonIllumination":0.6,"earliestNight":"2027-01-10","latestNight":"2027-02-10","repeats":2,
+                 "repeatIntervalHours":48,"repeatToleranceHours":6,"priority":%d}"""
                 .formatted(programId, ra, dec, priority);
     }
 
