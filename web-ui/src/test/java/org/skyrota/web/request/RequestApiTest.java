@@ -143,6 +143,39 @@ class RequestApiTest {
     }
 
     @Test
+    void repeatSpacingIsStoredAndEveryRuleNamesItsField() throws Exception {
+        String ok = request("\"05:35:17\"", "\"-05:23:28\"", 3);
+        String spaced = create("/api/requests", ok);
+        assertThat(JsonPath.<Double>read(spaced, "$.repeatIntervalHours")).isEqualTo(48.0);
+        assertThat(JsonPath.<Double>read(spaced, "$.repeatToleranceHours")).isEqualTo(6.0);
+        // No tolerance given: none.
+        String strict = create("/api/requests", ok.replace(",\"repeatToleranceHours\":6", ""));
+        assertThat(JsonPath.<Double>read(strict, "$.repeatToleranceHours")).isEqualTo(0.0);
+        // One visit needs no spacing.
+        String single = create("/api/requests", ok.replace("\"repeats\":2,", "\"repeats\":1,")
+                .replace("\"repeatIntervalHours\":48,\"repeatToleranceHours\":6,", ""));
+        assertThat(JsonPath.<Object>read(single, "$.repeatIntervalHours")).isNull();
+        assertThat(JsonPath.<Object>read(single, "$.repeatToleranceHours")).isNull();
+
+        // More than one repeat needs an interval.
+        refused(send(ok.replace("\"repeatIntervalHours\":48,\"repeatToleranceHours\":6,", "")), "repeatIntervalHours");
+        // Each field's own range: the interval more than 0 and at most 366 days, the tolerance not negative.
+        refused(send(ok.replace("\"repeatIntervalHours\":48", "\"repeatIntervalHours\":0")), "repeatIntervalHours");
+        refused(send(ok.replace("\"repeatIntervalHours\":48", "\"repeatIntervalHours\":-24")), "repeatIntervalHours");
+        refused(send(ok.replace("\"repeatIntervalHours\":48", "\"repeatIntervalHours\":8785")), "repeatIntervalHours");
+        refused(send(ok.replace("\"repeatIntervalHours\":48", "\"repeatIntervalHours\":\"daily\"")), "repeatIntervalHours");
+        refused(send(ok.replace("\"repeatToleranceHours\":6", "\"repeatToleranceHours\":-1")), "repeatToleranceHours");
+        // A tolerance as large as the interval would allow two visits at the same moment: both fields are named.
+        send(ok.replace("\"repeatToleranceHours\":6", "\"repeatToleranceHours\":48"))
+                .andExpect(status().isBadRequest())
+                .andExpect(jsonPath("$.parameter").value("repeatToleranceHours"))
+                .andExpect(jsonPath("$.errors[*].field").value(contains("repeatToleranceHours", "repeatIntervalHours")));
+        // A tolerance loosens an interval, so it cannot come alone.
+        refused(send(ok.replace("\"repeats\":2,", "\"repeats\":1,").replace("\"repeatIntervalHours\":48,", "")), "repeatToleranceHours");
+        mvc.perform(get("/api/requests")).andExpect(jsonPath("$.totalItems").value(3));
+    }
+
+    @Test
     void lifecycleFollowsTheAllowedTransitionsOnly() throws Exception {
         long id = id(create("/api/requests", request("83.82", "-5.39", 1)));
         action(id, "accept", 0).andExpect(status().isConflict()).andExpect(jsonPath("$.detail").value(containsString("draft")));
