@@ -220,6 +220,7 @@ class RequestApiTest {
             }
         }
         create("/api/requests", request("10.68", "41.27", 3).replace("\"owner\":\"student\"", "\"owner\":\"student2\"").replace("NGC 1976", "M 31"));
+        // Descending priority is the planner's order: 5, the highest, first.
         mvc.perform(get("/api/requests?state=submitted&sort=priority,desc"))
                 .andExpect(jsonPath("$.totalItems").value(3))
                 .andExpect(jsonPath("$.items[*].priority").value(contains(5, 3, 1)));
