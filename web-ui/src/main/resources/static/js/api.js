@@ -340,3 +340,16 @@ export async function exists(path) {
     return r.ok;
   } catch { return false; }
 }
+
+/** 1 is the lowest priority and 5 the highest, as the planner counts. */
+export function priorityLabel(p) {
+  return p === 1 ? '1 (lowest)' : p === 5 ? '5 (highest)' : String(p);
+}
+
+/** A request's repeats as a person reads them: "×3, at least 24 h apart, tolerance 2 h". */
+export function repeatsText(r) {
+  if (r.repeats <= 1) return '×1';
+  if (r.repeatIntervalHours == null) return `×${r.repeats}, no spacing asked`;
+  const tolerance = r.repeatToleranceHours || 0;
+  return `×${r.repeats}, at least ${r.repeatIntervalHours} h apart` + (tolerance > 0 ? `, tolerance ${tolerance} h` : '');
+}

@@ -2,7 +2,7 @@
 // each row says when the request is next observable at the chosen site and, when the draft plan
 // leaves it out, the planner's reason.
 import {
-  addDays, all, api, apiIfPresent, ApiError, CALENDAR_PATH, clear, el, exists, field, isReviewer, say, session, siteClock, siteToday, timeEl,
+  addDays, all, api, apiIfPresent, ApiError, CALENDAR_PATH, clear, el, exists, field, isReviewer, priorityLabel, repeatsText, say, session, siteClock, siteToday, timeEl,
 } from '../api.js';
 
 const STATES = ['draft', 'submitted', 'accepted', 'rejected', 'withdrawn'];
@@ -15,7 +15,7 @@ export async function render(main) {
   const f = {
     programId: el('select', { name: 'programId' }, el('option', { value: '' }, 'all'), programs.map(p => el('option', { value: p.id }, p.code))),
     state: el('select', { name: 'state' }, el('option', { value: '' }, 'all'), STATES.map(s => el('option', { value: s }, s))),
-    priority: el('select', { name: 'priority' }, el('option', { value: '' }, 'all'), [1, 2, 3, 4, 5].map(p => el('option', { value: p }, p))),
+    priority: el('select', { name: 'priority' }, el('option', { value: '' }, 'all'), [5, 4, 3, 2, 1].map(p => el('option', { value: p }, priorityLabel(p)))),
     site: el('select', { name: 'site' }, sites.map(s => el('option', { value: s.id }, s.name))),
     target: el('input', { name: 'target', type: 'search', placeholder: 'target name contains' }),
   };
@@ -70,8 +70,8 @@ function row(r, programName, site, reload) {
     el('td', { 'data-label': 'Owner' }, r.owner),
     el('td', { 'data-label': 'Status' }, el('span', { class: `state state-${r.state}` }, r.state),
       r.rejectionReason ? el('div', { class: 'muted' }, r.rejectionReason) : null),
-    el('td', { 'data-label': 'Priority', class: 'num' }, r.priority),
-    el('td', { 'data-label': 'Nights' }, `${r.earliestNight || 'any'} – ${r.latestNight || 'any'}, ×${r.repeats}`),
+    el('td', { 'data-label': 'Priority', class: 'num priority' }, priorityLabel(r.priority)),
+    el('td', { 'data-label': 'Nights', class: 'nights' }, `${r.earliestNight || 'any'} – ${r.latestNight || 'any'}, ${repeatsText(r)}`),
     next,
     reason,
     el('td', { 'data-label': 'Actions' }, actions(r, reload)));

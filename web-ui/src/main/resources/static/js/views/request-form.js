@@ -1,8 +1,8 @@
-// The new-request form: target, exposure plan, constraints, window, repeats, priority, program;
+// The new-request form: target, exposure plan, constraints, window, repeats and their spacing, priority, program;
 // a live preview of the nights and hours observable at each site; field errors beside fields;
 // the Sun caution for solar targets.
 import {
-  addDays, all, api, ApiError, clear, clearFieldErrors, el, field, hours, say, session, showFieldErrors, siteClock, siteToday, timeEl,
+  addDays, all, api, ApiError, clear, clearFieldErrors, el, field, hours, priorityLabel, say, session, showFieldErrors, siteClock, siteToday, timeEl,
 } from '../api.js';
 import { separationDeg, sunPosition } from '../sky-sketch.js';
 
@@ -15,7 +15,7 @@ export async function render(main) {
     el('option', { value: '' }, 'choose…'), programs.map(p => el('option', { value: p.id }, `${p.code} — ${p.title}`)));
   if (programs.length === 1) program.value = programs[0].id;
   const darkness = el('select', { name: 'darkness' }, ['astronomical', 'nautical', 'civil'].map(d => el('option', { value: d }, d)));
-  const priority = el('select', { name: 'priority' }, [1, 2, 3, 4, 5].map(p => el('option', { value: p, selected: p === 3 }, p === 1 ? '1 (highest)' : p === 5 ? '5 (lowest)' : p)));
+  const priority = el('select', { name: 'priority' }, [1, 2, 3, 4, 5].map(p => el('option', { value: p, selected: p === 3 }, priorityLabel(p))));
   const owner = input('owner', { value: session.user ? session.user.username : '', readonly: session.user ? true : null });
   const exposures = el('div', { id: 'exposures' });
   const caution = el('div', { id: 'sun-caution', 'aria-live': 'polite' });
@@ -39,8 +39,12 @@ export async function render(main) {
         field('Maximum Moon illumination (0–1)', input('maxMoonIllumination', { type: 'number', step: 'any' }), 'applies only while the Moon is up'),
         field('Earliest night', input('earliestNight', { type: 'date' })),
         field('Latest night', input('latestNight', { type: 'date' })),
-        field('Repeats', input('repeats', { type: 'number', min: 1, max: 100, value: 1 })),
-        field('Priority', priority))),
+        field('Repeats', input('repeats', { type: 'number', min: 1, max: 100, value: 1 }), 'how many visits, each the whole exposure plan'),
+        field('Repeat interval (hours)', input('repeatIntervalHours', { type: 'number', step: 'any', min: 0 }),
+          'least time between the starts of two visits; needed with more than one repeat (24: one visit a night)'),
+        field('Repeat tolerance (hours)', input('repeatToleranceHours', { type: 'number', step: 'any', min: 0 }),
+          'how much sooner a repeat may still start; empty: 0, and less than the interval'),
+        field('Priority', priority, '1 lowest, 5 highest: higher priorities are placed first'))),
     el('section', { class: 'card' }, el('h2', {}, 'Program'),
       el('div', { class: 'grid2' }, field('Program', program), field('Owner', owner))),
     el('section', { class: 'card' }, el('h2', {}, 'Where and when it is observable'), preview),
@@ -75,7 +79,8 @@ export async function render(main) {
     minAltitudeDeg: number('minAltitudeDeg'), darkness: darkness.value,
     minMoonSeparationDeg: number('minMoonSeparationDeg'), maxMoonIllumination: number('maxMoonIllumination'),
     earliestNight: value('earliestNight') || null, latestNight: value('latestNight') || null,
-    repeats: number('repeats'), priority: Number(priority.value),
+    repeats: number('repeats'), repeatIntervalHours: number('repeatIntervalHours'),
+    repeatToleranceHours: number('repeatToleranceHours'), priority: Number(priority.value),
   });
 
   // Error numbers of the live preview belong to fields too: the compute endpoint names its parameter.

@@ -153,7 +153,14 @@ public class DemoData implements ApplicationRunner {
             r.setConditions(20 + random.nextInt(4) * 5, darkness,
                     i % 3 == 0 ? 30.0 : null, i % 4 == 0 ? 0.5 : null);
             LocalDate earliest = today.plusDays(random.nextInt(60) - 20);
-            r.setSchedule(earliest, earliest.plusDays(14 + random.nextInt(60)), 1 + random.nextInt(3), 1 + random.nextInt(5));
+            int repeats = 1 + random.nextInt(3);
+            // Priority 1 is the lowest; drawn as before and flipped, so each demo request keeps its importance.
+            r.setSchedule(earliest, earliest.plusDays(14 + random.nextInt(60)), repeats, 6 - (1 + random.nextInt(5)));
+            if (repeats > 1) {
+                // Nightly, two-nightly or every three nights, each a few hours either way (taken from i, so the
+                // random draws above stay as they were).
+                r.setRepeatSpacing(24.0 * (1 + i % 3), 4.0);
+            }
             r.setExposures(exposures(random, i));
             advance(r, i, random);
             requests.save(r);

@@ -210,13 +210,22 @@ public final class PlanningMapper {
                         r.getMaxMoonIllumination() == null ? 1 : r.getMaxMoonIllumination());
         List<ExposureStep> steps = r.getExposures().stream()
                 .map(e -> new ExposureStep(e.getFilterName(), e.getSeconds(), e.getCount())).toList();
-        // The server ranks 1 as the highest priority, the planner 5.
-        int plannerPriority = 6 - r.getPriority();
+        // One visit needs no spacing (the planner's Request wants zero then); requests stored before the spacing
+        // fields existed have none either.
+        boolean spaced = openRepeats > 1 && r.getRepeatIntervalHours() != null;
+        Duration interval = spaced ? hours(r.getRepeatIntervalHours()) : Duration.ZERO;
+        Duration tolerance = spaced && r.getRepeatToleranceHours() != null ? hours(r.getRepeatToleranceHours()) : Duration.ZERO;
+        // Stored priorities count as the planner's do: 1 lowest, 5 highest.
         return new Request(String.valueOf(r.getId()), String.valueOf(r.getProgram().getId()), r.getOwner(),
                 Target.fixed(r.getTargetName(), r.getRaDeg(), r.getDecDeg()), steps, limits,
                 r.getEarliestNight() == null ? first : r.getEarliestNight(),
                 r.getLatestNight() == null ? last : r.getLatestNight(),
-                openRepeats, Duration.ZERO, Duration.ZERO, plannerPriority);
+                openRepeats, interval, tolerance, r.getPriority());
+    }
+
+    /** Whole seconds: the planner's grid is minutes, so finer is never used. */
+    static Duration hours(double h) {
+        return Duration.ofSeconds(Math.round(h * 3600));
     }
 
     static DarknessLimit darkness(org.skyrota.web.request.DarknessLimit d) {

@@ -67,7 +67,18 @@ public class ObservingRequest extends StoredEntity {
     @Column(nullable = false)
     private int repeats;
 
-    /** 1 (highest) to 5 (lowest). */
+    /**
+     * Least start-to-start spacing between two visits, hours; null where no spacing was asked (stored before the
+     * field existed, or a single visit).
+     */
+    @Column(name = "repeat_interval_hours")
+    private Double repeatIntervalHours;
+
+    /** How much closer than the interval a repeat may still start, hours; null reads as none. */
+    @Column(name = "repeat_tolerance_hours")
+    private Double repeatToleranceHours;
+
+    /** 1 (lowest) to 5 (highest), as the planner and the import formats count. */
     @Column(nullable = false)
     private int priority;
 
@@ -120,6 +131,11 @@ public class ObservingRequest extends StoredEntity {
         this.latestNight = latestNight;
         this.repeats = repeats;
         this.priority = priority;
+    }
+
+    public void setRepeatSpacing(Double intervalHours, Double toleranceHours) {
+        this.repeatIntervalHours = intervalHours;
+        this.repeatToleranceHours = toleranceHours;
     }
 
     public void setExposures(List<Exposure> plan) {
@@ -177,6 +193,14 @@ public class ObservingRequest extends StoredEntity {
 
     public int getRepeats() {
         return repeats;
+    }
+
+    public Double getRepeatIntervalHours() {
+        return repeatIntervalHours;
+    }
+
+    public Double getRepeatToleranceHours() {
+        return repeatToleranceHours;
     }
 
     public int getPriority() {

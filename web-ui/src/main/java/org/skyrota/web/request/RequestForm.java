@@ -18,6 +18,11 @@ import jakarta.validation.constraints.Size;
  * or sexagesimal text (see {@link Sexagesimal}); absent conditions take the defaults of the
  * compute endpoints (minimum altitude 30°, astronomical darkness, no Moon limits). {@code owner}
  * defaults to the signed-in user; only a coordinator or an admin may name someone else.
+ *
+ * <p>{@code priority} runs from 1 (lowest) to 5 (highest). With more than one repeat,
+ * {@code repeatIntervalHours} is the least start-to-start spacing between two visits and
+ * {@code repeatToleranceHours} (default 0, less than the interval) how much closer a repeat may
+ * still start; the cross-field rules are checked in {@link RequestService}.
  */
 record RequestForm(
         Long version,
@@ -34,6 +39,8 @@ record RequestForm(
         LocalDate earliestNight,
         LocalDate latestNight,
         @Min(1) @Max(100) Integer repeats,
+        @DecimalMin(value = "0", inclusive = false) @DecimalMax("8784") Double repeatIntervalHours,
+        @DecimalMin("0") @DecimalMax("8784") Double repeatToleranceHours,
         @NotNull @Min(1) @Max(5) Integer priority) {
 
     record ExposureForm(

@@ -162,6 +162,29 @@ public class RequestService {
         r.requireVersion(KIND, version);
     }
 
+    /**
+     * The rules between repeats, interval and tolerance (each field's own range is checked on the form). Without an
+     * interval, the planner would be free to put every repeat into the same night, which is rarely what a repeat is
+     * for; so more than one repeat needs one. A conflict between two fields names both, so that each field shows it.
+     */
+    static List<FieldProblem> repeatSpacingProblems(int repeats, Double intervalHours, Double toleranceHours) {
+        List<FieldProblem> problems = new ArrayList<>();
+        if (repeats > 1 && intervalHours == null) {
+            problems.add(new FieldProblem("repeatIntervalHours",
+                    "is required when repeats is more than 1: the least time between the starts of two visits, hours"));
+        }
+        if (toleranceHours != null && intervalHours == null) {
+            problems.add(new FieldProblem("repeatToleranceHours", "needs repeatIntervalHours, which it loosens"));
+        }
+        if (toleranceHours != null && intervalHours != null && toleranceHours >= intervalHours) {
+            problems.add(new FieldProblem("repeatToleranceHours",
+                    "must be less than repeatIntervalHours (" + intervalHours + "): " + toleranceHours));
+            problems.add(new FieldProblem("repeatIntervalHours",
+                    "must be more than repeatToleranceHours (" + toleranceHours + "): " + intervalHours));
+        }
+        return problems;
+    }
+
     private static void apply(RequestForm form, ObservingRequest r) {
         List<FieldProblem> problems = new ArrayList<>();
         double raDeg = Double.NaN;
@@ -179,6 +202,8 @@ public class RequestService {
         if (form.earliestNight() != null && form.latestNight() != null && form.latestNight().isBefore(form.earliestNight())) {
             problems.add(new FieldProblem("latestNight", "must not be before earliestNight (" + form.earliestNight() + ")"));
         }
+        int repeats = form.repeats() == null ? 1 : form.repeats();
+        problems.addAll(repeatSpacingProblems(repeats, form.repeatIntervalHours(), form.repeatToleranceHours()));
         if (!problems.isEmpty()) {
             throw new InvalidParametersException(problems);
         }
@@ -186,7 +211,9 @@ public class RequestService {
         r.setConditions(form.minAltitudeDeg() == null ? DEFAULT_MIN_ALTITUDE_DEG : form.minAltitudeDeg(),
                 form.darkness() == null ? DarknessLimit.ASTRONOMICAL : form.darkness(),
                 form.minMoonSeparationDeg(), form.maxMoonIllumination());
-        r.setSchedule(form.earliestNight(), form.latestNight(), form.repeats() == null ? 1 : form.repeats(), form.priority());
+        r.setSchedule(form.earliestNight(), form.latestNight(), repeats, form.priority());
+        r.setRepeatSpacing(form.repeatIntervalHours(), form.repeatIntervalHours() == null ? null
+                : form.repeatToleranceHours() == null ? 0.0 : form.repeatToleranceHours());
         r.setExposures(form.exposures().stream().map(e -> new Exposure(e.filter().trim(), e.seconds(), e.count())).toList());
     }
 }

@@ -21,6 +21,8 @@ record RequestView(
         LocalDate earliestNight,
         LocalDate latestNight,
         int repeats,
+        Double repeatIntervalHours,
+        Double repeatToleranceHours,
         int priority,
         RequestState state,
         String rejectionReason,
@@ -32,7 +34,8 @@ record RequestView(
                 r.getRaDeg(), r.getDecDeg(),
                 r.getExposures().stream().map(e -> new RequestForm.ExposureForm(e.getFilterName(), e.getSeconds(), e.getCount())).toList(),
                 r.getMinAltitudeDeg(), r.getDarkness(), r.getMinMoonSeparationDeg(), r.getMaxMoonIllumination(),
-                r.getEarliestNight(), r.getLatestNight(), r.getRepeats(), r.getPriority(), r.getState(), r.getRejectionReason(),
+                r.getEarliestNight(), r.getLatestNight(), r.getRepeats(),
+                r.getRepeatIntervalHours(), r.getRepeatToleranceHours(), r.getPriority(), r.getState(), r.getRejectionReason(),
                 r.getCreatedAt(), r.getUpdatedAt());
     }
 }

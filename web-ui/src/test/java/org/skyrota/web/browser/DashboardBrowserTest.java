@@ -178,12 +178,16 @@ class DashboardBrowserTest {
         shot("03-request-bad-field");
 
         type("dec", "-05:23:28");
-        browser.findElement(By.cssSelector("select[name=priority] option[value='1']")).click();
+        // 5 is the highest priority, and the form says so.
+        WebElement highest = browser.findElement(By.cssSelector("select[name=priority] option[value='5']"));
+        assertThat(highest.getText()).isEqualTo("5 (highest)");
+        highest.click();
         wait.until(ExpectedConditions.presenceOfElementLocated(By.id("preview-table")));
         shot("04-request-fixed-with-preview");
         form.findElement(By.cssSelector("button[value=queue]")).click();
         WebElement row = queueRow(TARGET);
         assertThat(row.findElement(By.cssSelector(".state")).getText()).isEqualTo("submitted");
+        assertThat(row.findElement(By.cssSelector("td.priority")).getText()).isEqualTo("5 (highest)");
         wait.until(d -> !row.findElement(By.cssSelector("td.next")).getText().equals("…"));
         shot("05-queued");
     }
@@ -200,8 +204,19 @@ class DashboardBrowserTest {
         if (!accounts) {
             type("owner", "student");
         }
+        // Three repeats without an interval: the server names the interval field, and the form shows it there.
+        type("repeats", "3");
+        browser.findElement(By.cssSelector("#request-form button[value=draft]")).click();
+        WebElement intervalError = wait.until(ExpectedConditions.visibilityOfElementLocated(By.cssSelector("#f-repeatIntervalHours-error")));
+        wait.until(d -> !intervalError.getText().isBlank());
+        assertThat(intervalError.findElement(By.xpath("..")).getDomAttribute("data-field")).isEqualTo("repeatIntervalHours");
+        assertThat(browser.findElements(By.cssSelector("[aria-invalid=true]"))).hasSize(1);
+        shot("06a-repeats-need-an-interval");
+        type("repeatIntervalHours", "24");
+        type("repeatToleranceHours", "2");
         browser.findElement(By.cssSelector("#request-form button[value=draft]")).click();
         WebElement row = queueRow(SCRIPT_NAME);
+        assertThat(row.findElement(By.cssSelector("td.nights")).getText()).endsWith("×3, at least 24 h apart, tolerance 2 h");
         WebElement cell = row.findElement(By.cssSelector("td.target"));
         assertThat(cell.getText()).isEqualTo(SCRIPT_NAME);
         assertThat(cell.findElements(By.tagName("b"))).isEmpty();

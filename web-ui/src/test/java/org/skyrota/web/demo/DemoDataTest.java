@@ -62,6 +62,13 @@ class DemoDataTest {
         assertThat(all150).hasSize(DemoData.REQUEST_COUNT);
         assertThat(all150.stream().map(ObservingRequest::getState).collect(Collectors.toSet())).isEqualTo(EnumSet.allOf(RequestState.class));
         assertThat(all150).filteredOn(r -> r.getState() == RequestState.REJECTED).allSatisfy(r -> assertThat(r.getRejectionReason()).isNotBlank());
+        // Every priority from 1 (lowest) to 5 (highest) occurs, and every repeated request carries the spacing the
+        // request form asks for (an interval, and a tolerance below it), so a demo draft can be edited as it is.
+        assertThat(all150.stream().map(ObservingRequest::getPriority).collect(Collectors.toSet())).containsExactlyInAnyOrder(1, 2, 3, 4, 5);
+        assertThat(all150).filteredOn(r -> r.getRepeats() > 1).isNotEmpty().allSatisfy(r -> {
+            assertThat(r.getRepeatIntervalHours()).isPositive();
+            assertThat(r.getRepeatToleranceHours()).isGreaterThanOrEqualTo(0.0).isLessThan(r.getRepeatIntervalHours());
+        });
 
         mvc.perform(get("/api/about")).andExpect(jsonPath("$.demo").value(true));
         long own = all150.stream().filter(r -> r.getOwner().equals("student")).count();

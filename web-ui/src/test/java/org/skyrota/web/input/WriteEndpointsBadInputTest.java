@@ -69,10 +69,10 @@ class WriteEndpointsBadInputTest {
                 new Endpoint("/api/requests", "COORDINATOR", "{\"programId\":#P,\"targetName\":\"NGC 7000 #N\",\"ra\":\"20:58:47\","
                         + "\"dec\":\"+44:19:48\",\"exposures\":[{\"filter\":\"V\",\"seconds\":30,\"count\":4}],\"minAltitudeDeg\":30,"
                         + "\"darkness\":\"astronomical\",\"minMoonSeparationDeg\":20,\"maxMoonIllumination\":0.5,"
-                        + "\"earliestNight\":\"2027-01-10\",\"latestNight\":\"2027-01-20\",\"repeats\":1,\"priority\":3}",
+                        + "\"earliestNight\":\"2027-01-10\",\"latestNight\":\"2027-01-20\",\"repeats\":2,\"repeatIntervalHours\":24,\"repeatToleranceHours\":3,\"priority\":3}",
                         List.of("programId", "owner", "targetName", "ra", "dec", "exposures", "exposures[0].filter", "exposures[0].seconds",
                                 "exposures[0].count", "minAltitudeDeg", "darkness", "minMoonSeparationDeg", "maxMoonIllumination",
-                                "earliestNight", "latestNight", "repeats", "priority")),
+                                "earliestNight", "latestNight", "repeats", "repeatIntervalHours", "repeatToleranceHours", "priority")),
                 new Endpoint("/api/sites", "COORDINATOR", "{\"name\":\"Hill #N\",\"latitudeDeg\":45,\"longitudeDeg\":7,\"elevationM\":500,"
                         + "\"timeZone\":\"Europe/Rome\",\"darkSkyZenithVMag\":21.5,\"horizon\":[{\"azimuthDeg\":0,\"altitudeDeg\":5}]}",
                         List.of("name", "latitudeDeg", "longitudeDeg", "elevationM", "timeZone", "darkSkyZenithVMag", "horizon",

@@ -84,7 +84,8 @@ class RequestApiTest {
         return """
                 {"programId":%d,"owner":"student","targetName":"NGC 1976","ra":%s,"dec":%s,
                  "exposures":[{"filter":"V","seconds":60,"count":10},{"filter":"R","seconds":45,"count":5}],
-                 "maxMoonIllumination":0.6,"earliestNight":"2027-01-10","latestNight":"2027-02-10","repeats":2,"priority":%d}"""
+                 "maxMoonIllumination":0.6,"earliestNight":"2027-01-10","latestNight":"2027-02-10","repeats":2,
+                 "repeatIntervalHours":48,"repeatToleranceHours":6,"priority":%d}"""
                 .formatted(programId, ra, dec, priority);
     }
 
@@ -142,6 +143,39 @@ class RequestApiTest {
     }
 
     @Test
+    void repeatSpacingIsStoredAndEveryRuleNamesItsField() throws Exception {
+        String ok = request("\"05:35:17\"", "\"-05:23:28\"", 3);
+        String spaced = create("/api/requests", ok);
+        assertThat(JsonPath.<Double>read(spaced, "$.repeatIntervalHours")).isEqualTo(48.0);
+        assertThat(JsonPath.<Double>read(spaced, "$.repeatToleranceHours")).isEqualTo(6.0);
+        // No tolerance given: none.
+        String strict = create("/api/requests", ok.replace(",\"repeatToleranceHours\":6", ""));
+        assertThat(JsonPath.<Double>read(strict, "$.repeatToleranceHours")).isEqualTo(0.0);
+        // One visit needs no spacing.
+        String single = create("/api/requests", ok.replace("\"repeats\":2,", "\"repeats\":1,")
+                .replace("\"repeatIntervalHours\":48,\"repeatToleranceHours\":6,", ""));
+        assertThat(JsonPath.<Object>read(single, "$.repeatIntervalHours")).isNull();
+        assertThat(JsonPath.<Object>read(single, "$.repeatToleranceHours")).isNull();
+
+        // More than one repeat needs an interval.
+        refused(send(ok.replace("\"repeatIntervalHours\":48,\"repeatToleranceHours\":6,", "")), "repeatIntervalHours");
+        // Each field's own range: the interval more than 0 and at most 366 days, the tolerance not negative.
+        refused(send(ok.replace("\"repeatIntervalHours\":48", "\"repeatIntervalHours\":0")), "repeatIntervalHours");
+        refused(send(ok.replace("\"repeatIntervalHours\":48", "\"repeatIntervalHours\":-24")), "repeatIntervalHours");
+        refused(send(ok.replace("\"repeatIntervalHours\":48", "\"repeatIntervalHours\":8785")), "repeatIntervalHours");
+        refused(send(ok.replace("\"repeatIntervalHours\":48", "\"repeatIntervalHours\":\"daily\"")), "repeatIntervalHours");
+        refused(send(ok.replace("\"repeatToleranceHours\":6", "\"repeatToleranceHours\":-1")), "repeatToleranceHours");
+        // A tolerance as large as the interval would allow two visits at the same moment: both fields are named.
+        send(ok.replace("\"repeatToleranceHours\":6", "\"repeatToleranceHours\":48"))
+                .andExpect(status().isBadRequest())
+                .andExpect(jsonPath("$.parameter").value("repeatToleranceHours"))
+                .andExpect(jsonPath("$.errors[*].field").value(contains("repeatToleranceHours", "repeatIntervalHours")));
+        // A tolerance loosens an interval, so it cannot come alone.
+        refused(send(ok.replace("\"repeats\":2,", "\"repeats\":1,").replace("\"repeatIntervalHours\":48,", "")), "repeatToleranceHours");
+        mvc.perform(get("/api/requests")).andExpect(jsonPath("$.totalItems").value(3));
+    }
+
+    @Test
     void lifecycleFollowsTheAllowedTransitionsOnly() throws Exception {
         long id = id(create("/api/requests", request("83.82", "-5.39", 1)));
         action(id, "accept", 0).andExpect(status().isConflict()).andExpect(jsonPath("$.detail").value(containsString("draft")));
@@ -186,6 +220,7 @@ class RequestApiTest {
             }
         }
         create("/api/requests", request("10.68", "41.27", 3).replace("\"owner\":\"student\"", "\"owner\":\"student2\"").replace("NGC 1976", "M 31"));
+        // Descending priority is the planner's order: 5, the highest, first.
         mvc.perform(get("/api/requests?state=submitted&sort=priority,desc"))
                 .andExpect(jsonPath("$.totalItems").value(3))
                 .andExpect(jsonPath("$.items[*].priority").value(contains(5, 3, 1)));

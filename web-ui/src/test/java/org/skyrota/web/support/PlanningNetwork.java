@@ -59,7 +59,7 @@ public final class PlanningNetwork {
                 + "\",\"targetName\":\"" + target + "\",\"ra\":" + ra + ",\"dec\":" + dec
                 + ",\"exposures\":[{\"filter\":\"V\",\"seconds\":60,\"count\":5}],\"minAltitudeDeg\":30,"
                 + "\"earliestNight\":\"" + FIRST_NIGHT + "\",\"latestNight\":\"" + LAST_NIGHT + "\",\"repeats\":" + repeats
-                + ",\"priority\":2}"));
+                + (repeats > 1 ? ",\"repeatIntervalHours\":24,\"repeatToleranceHours\":4" : "") + ",\"priority\":2}"));
         ApiClient.Answer s = api.post("/api/requests/" + id + "/submit?version=0", coordinator, null);
         assertThat(s.status()).as(s.body()).isEqualTo(200);
         ApiClient.Answer a = api.post("/api/requests/" + id + "/accept?version=" + s.id("$.version"), coordinator, null);

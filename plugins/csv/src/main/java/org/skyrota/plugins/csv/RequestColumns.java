@@ -28,6 +28,7 @@ public final class RequestColumns {
     public static final String LATEST_NIGHT = "latest_night";
     public static final String REPEATS = "repeats";
     public static final String INTERVAL_DAYS = "interval_days";
+    /** 1 (lowest) to 5 (highest), as the planner and {@code RequestRecord} count. */
     public static final String PRIORITY = "priority";
     public static final String PROGRAM = "program";
     public static final String OWNER = "owner";
