@@ -115,7 +115,7 @@ public class RequestImports {
                 r.raDeg() == null ? null : Double.toString(r.raDeg()), r.decDeg() == null ? null : Double.toString(r.decDeg()),
                 r.exposures().stream().map(e -> new RequestForm.ExposureForm(e.filter(), e.seconds(), e.count())).toList(),
                 r.minAltitudeDeg(), darkness, r.minMoonSeparationDeg(), r.maxMoonIllumination(), r.earliestNight(),
-                r.latestNight(), r.repeats(), r.priority());
+                r.latestNight(), r.repeats(), r.intervalDays() > 0 ? r.intervalDays() * 24.0 : null, null, r.priority());
         for (ConstraintViolation<RequestForm> v : validator.validate(form)) {
             problems.add(new FieldProblem(where + v.getPropertyPath(), v.getMessage()));
         }
