@@ -37,10 +37,9 @@ import org.openqa.selenium.JavascriptExecutor;
 import org.openqa.selenium.OutputType;
 import org.openqa.selenium.WebElement;
 import org.openqa.selenium.chrome.ChromeDriver;
-import org.openqa.selenium.chrome.ChromeDriverService;
-import org.openqa.selenium.chrome.ChromeOptions;
 import org.openqa.selenium.support.ui.ExpectedConditions;
 import org.openqa.selenium.support.ui.WebDriverWait;
+import org.skyrota.web.support.HeadlessChromium;
 import org.springframework.boot.test.context.SpringBootTest;
 import org.springframework.boot.test.web.server.LocalServerPort;
 
@@ -58,8 +57,6 @@ import org.springframework.boot.test.web.server.LocalServerPort;
 @TestMethodOrder(MethodOrderer.OrderAnnotation.class)
 class DashboardBrowserTest {
 
-    private static final Path CHROMIUM = Path.of("/usr/bin/chromium");
-    private static final Path CHROMEDRIVER = Path.of("/usr/bin/chromedriver");
     private static final Path SCREENSHOTS = Path.of("target", "screenshots");
     /** Unique per run, so that demo requests for the same objects are never mistaken for ours. */
     private static final String RUN = Long.toString(System.currentTimeMillis() % 100000, 36);
@@ -68,27 +65,18 @@ class DashboardBrowserTest {
 
     @LocalServerPort int port;
 
+    private HeadlessChromium chromium;
     private ChromeDriver browser;
     private WebDriverWait wait;
-    private Path profile;
     private final HttpClient http = HttpClient.newHttpClient();
     private boolean accounts;
 
     @BeforeAll
     void startBrowser() throws Exception {
-        assumeTrue(Files.isExecutable(CHROMIUM) && Files.isExecutable(CHROMEDRIVER),
+        assumeTrue(HeadlessChromium.installed(),
                 "Browser tests skipped: /usr/bin/chromium or /usr/bin/chromedriver is not installed (.ci/run installs them with apt-get)");
-        System.setProperty("webdriver.chrome.driver", CHROMEDRIVER.toString());
-        profile = Files.createTempDirectory("skyrota-chromium-");
-        ChromeOptions options = new ChromeOptions();
-        options.setBinary(CHROMIUM.toFile());
-        options.addArguments("--headless", "--no-sandbox", "--disable-gpu", "--disable-background-networking",
-                "--disable-component-update", "--disable-sync", "--no-first-run", "--disable-dev-shm-usage",
-                "--user-data-dir=" + profile, "--window-size=1280,800");
-        ChromeDriverService service = new ChromeDriverService.Builder()
-                .usingDriverExecutable(CHROMEDRIVER.toFile()).usingAnyFreePort().build();
-        browser = new ChromeDriver(service, options);
-        browser.manage().window().setSize(new Dimension(1280, 800));
+        chromium = HeadlessChromium.start(1280, 800);
+        browser = chromium.driver();
         wait = new WebDriverWait(browser, Duration.ofSeconds(20));
         wait.ignoring(org.openqa.selenium.StaleElementReferenceException.class);
         Files.createDirectories(SCREENSHOTS);
@@ -98,13 +86,8 @@ class DashboardBrowserTest {
 
     @AfterAll
     void stopBrowser() throws IOException {
-        if (browser != null) {
-            browser.quit();
-        }
-        if (profile != null) {
-            try (var walk = Files.walk(profile)) {
-                walk.sorted(java.util.Comparator.reverseOrder()).forEach(p -> p.toFile().delete());
-            }
+        if (chromium != null) {
+            chromium.close();
         }
     }
 
@@ -385,6 +368,29 @@ class DashboardBrowserTest {
                 "const d = arguments[0]; fetch('/api/calendar/mine.ics').then(r => r.text()).then(d).catch(e => d('error ' + e))");
         assertThat(String.valueOf(ics)).contains("BEGIN:VCALENDAR").contains("BEGIN:VEVENT").contains(TARGET);
         shot("21-requester-calendar-link");
+    }
+
+    @Test
+    @Order(12)
+    void theCoordinatorClosesANightWithAReasonThatTheGridShows() {
+        signOutAndIn("coordinator");
+        open("#/plan");
+        WebElement menu = wait.until(ExpectedConditions.presenceOfElementLocated(By.cssSelector("#plan-grid select.night-state")));
+        scrollTo(By.cssSelector("#plan-grid select.night-state"));
+        new org.openqa.selenium.support.ui.Select(menu).selectByValue("closed");
+        WebElement why = wait.until(ExpectedConditions.visibilityOfElementLocated(By.cssSelector("#plan-grid .night-close:not([hidden]) input")));
+        why.sendKeys("dome maintenance " + RUN);
+        why.submit();
+        wait.until(d -> d.findElements(By.cssSelector("#plan-grid td.closed")).stream()
+                .anyMatch(td -> td.getText().contains("closed: dome maintenance " + RUN)));
+        shot("22-night-closed-with-reason");
+        // Open it again, so that the night is as the demo had it.
+        WebElement closedMenu = browser.findElements(By.cssSelector("#plan-grid td.closed")).stream()
+                .filter(td -> td.getText().contains("dome maintenance " + RUN)).findFirst().orElseThrow()
+                .findElement(By.cssSelector("select.night-state"));
+        new org.openqa.selenium.support.ui.Select(closedMenu).selectByValue("open");
+        wait.until(d -> d.findElements(By.cssSelector("#plan-grid td.closed")).stream()
+                .noneMatch(td -> td.getText().contains("dome maintenance " + RUN)));
     }
 
     private void runPlanner(String screenshot) {
