@@ -100,6 +100,18 @@ class PackagedJarIT {
         assertThat(get("/api/sites", "coordinator:demo").body()).contains("\"totalItems\":3");
     }
 
+    /** Every bundled plugin loads from the packaged jar, with the libraries it needs packaged beside it. */
+    @Test
+    void everyBundledPluginLoadsFromThePackagedJar() throws Exception {
+        HttpResponse<String> plugins = get("/api/plugins", "coordinator:demo");
+        assertThat(plugins.statusCode()).isEqualTo(200);
+        assertThat(plugins.body()).as(plugins.body()).contains("\"problems\":[]");
+        for (String id : List.of("csv", "icalendar", "voevent", "conditions-file", "solar-system", "small-bodies")) {
+            assertThat(plugins.body()).contains("\"id\":\"" + id + "\"");
+        }
+        assertThat(readLog()).doesNotContain("Plugin left out");
+    }
+
     private static HttpResponse<String> get(String path, String userColonPassword) throws IOException, InterruptedException {
         HttpRequest.Builder request = HttpRequest.newBuilder(URI.create("http://127.0.0.1:" + port + path)).timeout(Duration.ofSeconds(30));
         if (userColonPassword != null) {

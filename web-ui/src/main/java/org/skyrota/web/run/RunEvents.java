@@ -1,10 +1,10 @@
 package org.skyrota.web.run;
 
 import java.io.IOException;
-import java.util.ArrayList;
-import java.util.List;
 import java.util.Map;
+import java.util.Set;
 import java.util.concurrent.ConcurrentHashMap;
+import java.util.concurrent.atomic.AtomicBoolean;
 
 import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
@@ -15,6 +15,12 @@ import org.springframework.web.servlet.mvc.method.annotation.SseEmitter;
 /**
  * The server-sent event streams of the runs: {@code progress} with each new best plan, one {@code done} at the end.
  * A stream opened after the run ended gets the last progress and {@code done} at once.
+ *
+ * <p>No lock of ours is held while an emitter is written to or closed: the servlet container runs an emitter's
+ * completion, timeout and error callbacks under locks of its own, and a callback that waited for a lock held by a
+ * writer waiting for the container would stop the planner's worker for good. Instead every stream is added before
+ * it looks for {@code done}, and {@code done} is recorded before the streams are walked, so each stream sees it at
+ * least once; a flag per stream makes it exactly once.
  */
 @Component
 class RunEvents {
@@ -25,9 +31,32 @@ class RunEvents {
     private static final long SLACK_MILLIS = 120_000;
 
     private static final class Channel {
-        final List<SseEmitter> emitters = new ArrayList<>();
-        String lastProgress;
-        String done;
+        final Set<Stream> streams = ConcurrentHashMap.newKeySet();
+        volatile String lastProgress;
+        volatile String done;
+    }
+
+    private record Stream(SseEmitter emitter, AtomicBoolean ended) {
+
+        void progress(String data) {
+            if (!ended.get() && !send(emitter, "progress", data)) {
+                // Close it rather than leave the reader waiting for a done that would never come.
+                end(null);
+            }
+        }
+
+        void end(String done) {
+            if (ended.compareAndSet(false, true)) {
+                if (done != null) {
+                    send(emitter, "done", done);
+                }
+                try {
+                    emitter.complete();
+                } catch (IllegalStateException e) {
+                    log.debug("Event stream already closed: {}", e.toString());
+                }
+            }
+        }
     }
 
     private final Map<Long, Channel> channels = new ConcurrentHashMap<>();
@@ -43,55 +72,39 @@ class RunEvents {
     SseEmitter subscribe(long runId, int timeLimitSeconds, String doneIfEnded) {
         SseEmitter emitter = new SseEmitter(timeLimitSeconds * 1000L + SLACK_MILLIS);
         Channel ch = channel(runId);
-        // The callbacks go on before the emitter is shared, so that none of its endings can be missed.
-        Runnable remove = () -> {
-            synchronized (ch) {
-                ch.emitters.remove(emitter);
-            }
-        };
-        emitter.onCompletion(remove);
-        emitter.onTimeout(remove);
-        emitter.onError(e -> remove.run());
-        synchronized (ch) {
-            if (ch.lastProgress != null) {
-                send(emitter, "progress", ch.lastProgress);
-            }
-            String done = ch.done != null ? ch.done : doneIfEnded;
-            if (done != null) {
-                send(emitter, "done", done);
-                emitter.complete();
-                return emitter;
-            }
-            ch.emitters.add(emitter);
+        Stream stream = new Stream(emitter, new AtomicBoolean());
+        Runnable forget = () -> ch.streams.remove(stream);
+        emitter.onCompletion(forget);
+        emitter.onTimeout(forget);
+        emitter.onError(e -> forget.run());
+        ch.streams.add(stream);
+        String progress = ch.lastProgress;
+        if (progress != null) {
+            stream.progress(progress);
+        }
+        String done = ch.done != null ? ch.done : doneIfEnded;
+        if (done != null) {
+            stream.end(done);
+            ch.streams.remove(stream);
         }
         return emitter;
     }
 
     void progress(long runId, String data) {
         Channel ch = channel(runId);
-        synchronized (ch) {
-            ch.lastProgress = data;
-            ch.emitters.removeIf(e -> {
-                if (send(e, "progress", data)) {
-                    return false;
-                }
-                // Close it rather than leave the reader waiting for a done that would never come.
-                closeQuietly(e);
-                return true;
-            });
+        ch.lastProgress = data;
+        for (Stream s : ch.streams) {
+            s.progress(data);
         }
     }
 
     void done(long runId, String data) {
         Channel ch = channel(runId);
-        synchronized (ch) {
-            ch.done = data;
-            for (SseEmitter e : ch.emitters) {
-                send(e, "done", data);
-                closeQuietly(e);
-            }
-            ch.emitters.clear();
+        ch.done = data;
+        for (Stream s : ch.streams) {
+            s.end(data);
         }
+        ch.streams.clear();
     }
 
     private static boolean send(SseEmitter emitter, String name, String data) {
@@ -102,14 +115,6 @@ class RunEvents {
             // the reader went away; the run goes on
             log.debug("Could not send {} to a run's event stream: {}", name, e.toString());
             return false;
-        }
-    }
-
-    private static void closeQuietly(SseEmitter emitter) {
-        try {
-            emitter.complete();
-        } catch (IllegalStateException e) {
-            log.debug("Event stream already closed: {}", e.toString());
         }
     }
 }

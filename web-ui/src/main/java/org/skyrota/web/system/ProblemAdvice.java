@@ -147,6 +147,26 @@ public class ProblemAdvice extends ResponseEntityExceptionHandler {
 
     @ExceptionHandler(Exception.class)
     ResponseEntity<Object> unexpected(Exception e, WebRequest request) {
+        if (StorageFailures.diskFull(e)) {
+            // The transaction did not commit, so nothing of this change is stored; reads go on working.
+            log.error("Disk full answering {}: nothing was stored; free space in the data directory", describe(request));
+            ProblemDetail body = ProblemDetail.forStatusAndDetail(HttpStatus.INSUFFICIENT_STORAGE,
+                    "The server's disk is full, so nothing of this change was stored. Stored data can still be read; "
+                            + "the change can be sent again once space is freed in the data directory.");
+            body.setType(ProblemTypes.STORAGE_FULL);
+            body.setTitle("Storage full");
+            return handleExceptionInternal(e, body, new HttpHeaders(), HttpStatus.INSUFFICIENT_STORAGE, request);
+        }
+        if (StorageFailures.databaseClosed(e)) {
+            log.warn("The database was closed after a storage failure answering {}; it opens again on the next call", describe(request));
+            ProblemDetail body = ProblemDetail.forStatusAndDetail(HttpStatus.SERVICE_UNAVAILABLE,
+                    "The database is opening again after a storage failure; nothing of this call was stored. Try again.");
+            body.setType(ProblemTypes.STORAGE_FULL);
+            body.setTitle("Storage unavailable");
+            HttpHeaders headers = new HttpHeaders();
+            headers.set(HttpHeaders.RETRY_AFTER, "1");
+            return handleExceptionInternal(e, body, headers, HttpStatus.SERVICE_UNAVAILABLE, request);
+        }
         log.error("Unexpected failure answering {}", describe(request), e);
         ProblemDetail body = ProblemDetail.forStatusAndDetail(HttpStatus.INTERNAL_SERVER_ERROR,
                 "The server failed to answer this request; the failure has been logged.");

@@ -14,6 +14,7 @@ public final class ProblemTypes {
     public static final URI CONFLICT = URI.create("urn:skyrota:problem:conflict");
     public static final URI FORBIDDEN = URI.create("urn:skyrota:problem:forbidden");
     public static final URI INTERNAL = URI.create("urn:skyrota:problem:internal-error");
+    public static final URI STORAGE_FULL = URI.create("urn:skyrota:problem:storage-full");
 
     private ProblemTypes() {}
 }
