@@ -229,10 +229,13 @@ function runPanel(ctx, draft, firstNight, lastNight) {
   const start = el('button', { type: 'button', id: 'run-start', disabled: !isReviewer() }, 'Run the planner');
   const cancel = el('button', { type: 'button', class: 'secondary', id: 'run-cancel', disabled: true }, 'Cancel the run');
   const publish = el('button', { type: 'button', id: 'publish', disabled: !isReviewer() || draft.revision == null }, 'Publish the draft');
+  const plugins = pluginSettings();
   let run = null, events = null;
   start.addEventListener('click', async () => {
     try {
-      run = await api('/api/planner/runs', { method: 'POST', body: { firstNight, lastNight, seconds: Number(seconds.value) || 30 } });
+      const weights = plugins.changedWeights();
+      run = await api('/api/planner/runs', { method: 'POST', body: { firstNight, lastNight, seconds: Number(seconds.value) || 30,
+        ...(Object.keys(weights).length ? { weights } : {}) } });
     } catch (e) {
       text.textContent = e.message;
       return;
@@ -272,7 +275,50 @@ function runPanel(ctx, draft, firstNight, lastNight) {
     await ctx.reload();
   });
   return [el('h2', {}, 'Planner run'),
-    el('div', { class: 'row' }, field('Time limit (s)', seconds), el('div', { class: 'actions' }, start, cancel, publish)), bar, text];
+    el('div', { class: 'row' }, field('Time limit (s)', seconds), el('div', { class: 'actions' }, start, cancel, publish)), bar, text,
+    plugins.node];
+}
+
+/**
+ * The loaded plugins and the score rules they add, each rule with its weight for the next run (the default until
+ * changed here); only changed weights are sent, under the rule's name, as the server's `weights` expects.
+ */
+function pluginSettings() {
+  const inputs = [];
+  const body = el('div', { id: 'plugin-settings' }, el('p', { class: 'muted' }, 'Loading plugins…'));
+  const node = el('details', { class: 'plugins' }, el('summary', {}, 'Plugins and their score rules'), body);
+  api('/api/plugins').then(p => {
+    const rules = p.scoreRules || [];
+    clear(body,
+      el('h3', {}, 'Score rules from plugins'),
+      rules.length === 0 ? el('p', { class: 'muted' }, 'No plugin adds a score rule; the built-in rules keep their weights.')
+        : el('div', { class: 'scroll' }, el('table', { class: 'stack', id: 'score-rule-weights' },
+          el('thead', {}, el('tr', {}, ['Rule', 'What it does', 'Hard', 'Medium', 'Soft'].map(h => el('th', {}, h)))),
+          el('tbody', {}, rules.map(r => {
+            const cells = ['hard', 'medium', 'soft'].map(level => {
+              const input = el('input', { type: 'number', min: 0, step: 1, size: 5, value: r.defaultWeight[level],
+                'aria-label': `${r.rule}: ${level} weight` });
+              inputs.push({ rule: r.rule, level, input, initial: r.defaultWeight[level] });
+              return el('td', { 'data-label': level }, input);
+            });
+            return el('tr', {}, el('td', { 'data-label': 'Rule' }, r.rule), el('td', { 'data-label': 'What it does' }, r.description), cells);
+          })))),
+      rules.length ? el('p', { class: 'muted' }, 'A weight of zero at every level switches the rule off for the run.') : null,
+      el('h3', {}, 'Loaded plugins'),
+      el('ul', { id: 'plugin-list' }, (p.plugins || []).map(x => el('li', {}, `${x.name} ${x.version} (${x.kinds.join(', ')})`))),
+      (p.problems || []).length ? el('p', { class: 'caution' }, `${p.problems.length} plugin problem(s): ${p.problems.map(x => x.problem).join('; ')}`) : null);
+  }).catch(e => clear(body, el('p', { class: 'muted' }, `The plugin list is not available: ${e.message}`)));
+  function changedWeights() {
+    const out = {};
+    const changed = new Set(inputs.filter(i => Number(i.input.value) !== i.initial).map(i => i.rule));
+    for (const i of inputs) {
+      if (!changed.has(i.rule)) continue;
+      out[i.rule] = out[i.rule] || { hard: 0, medium: 0, soft: 0 };
+      out[i.rule][i.level] = Math.max(0, Math.round(Number(i.input.value) || 0));
+    }
+    return out;
+  }
+  return { node, changedWeights };
 }
 
 function compare(ctx, c) {

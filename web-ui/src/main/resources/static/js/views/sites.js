@@ -124,6 +124,7 @@ async function equipment(site) {
     telescopes.map(t => el('div', { class: 'card' },
       el('h3', {}, `${t.name}${t.active ? '' : ' (inactive)'}`),
       el('p', {}, `${t.apertureMm} mm aperture, lowest altitude ${t.minAltitudeDeg}°, slew ${t.slewRateDegPerS}°/s, settle ${t.settleSeconds} s`),
+      el('p', {}, mountText(t)),
       el('ul', {}, (instruments.get(t.id) || []).map(i => el('li', {},
         `${i.name}: readout ${i.readoutSeconds} s, filter change ${i.filterChangeSeconds} s, filters ${i.filters.join(', ') || 'none'}`,
         i.certifiedSolarFilter ? ' — certified solar filter' : ''))),
@@ -132,15 +133,28 @@ async function equipment(site) {
         ['filters', 'Filters, in wheel order', 'list'], ['certifiedSolarFilter', 'Certified solar filter fitted', 'checkbox']]))),
     simpleForm('Add a telescope', '/api/telescopes', { siteId: site.id, active: true }, [
       ['name', 'Name', 'text'], ['apertureMm', 'Aperture (mm)', 'number'], ['minAltitudeDeg', 'Lowest altitude (°)', 'number'],
-      ['slewRateDegPerS', 'Slew rate (°/s)', 'number'], ['settleSeconds', 'Settle time (s)', 'number']]));
+      ['slewRateDegPerS', 'Slew rate (°/s)', 'number'], ['settleSeconds', 'Settle time (s)', 'number'],
+      ['mountKind', 'Mount', 'select:EQUATORIAL=Equatorial,ALT_AZIMUTH=Alt-azimuth'],
+      ['needsMeridianFlip', 'Flips at the meridian (German equatorial)', 'checkbox'],
+      ['eastHourAngleLimitDeg', 'East hour-angle limit (°, −180..0, empty for none)', 'number'],
+      ['westHourAngleLimitDeg', 'West hour-angle limit (°, 0..180, empty for none)', 'number']]));
+}
+
+function mountText(t) {
+  if (t.mountKind === 'ALT_AZIMUTH') return 'Alt-azimuth mount';
+  const limits = t.eastHourAngleLimitDeg > -180 || t.westHourAngleLimitDeg < 180
+    ? `, hour angles ${t.eastHourAngleLimitDeg}° to ${t.westHourAngleLimitDeg}°` : ', no hour-angle limits';
+  return `Equatorial mount${t.needsMeridianFlip ? ' that flips at the meridian' : ''}${limits}`;
 }
 
 function simpleForm(title, path, fixed, fields) {
   const summary = el('p', { class: 'error', role: 'alert' });
   const form = el('form', { class: 'equipment-form', novalidate: true },
-    el('div', { class: 'row' }, fields.map(([name, label, kind]) => field(label, el('input', {
-      name, type: kind === 'list' ? 'text' : kind, step: kind === 'number' ? 'any' : null,
-      placeholder: kind === 'list' ? 'B, V, R' : null })))),
+    el('div', { class: 'row' }, fields.map(([name, label, kind]) => field(label, kind.startsWith('select:')
+      ? el('select', { name }, kind.slice(7).split(',').map(o => el('option', { value: o.split('=')[0] }, o.split('=')[1])))
+      : el('input', {
+        name, type: kind === 'list' ? 'text' : kind, step: kind === 'number' ? 'any' : null,
+        placeholder: kind === 'list' ? 'B, V, R' : null })))),
     fields.some(f => f[0] === 'certifiedSolarFilter')
       ? el('p', { class: 'caution' }, 'Tick the solar filter only for a certified full-aperture solar filter: solar requests go only to such instruments.') : null,
     summary, el('button', { type: 'submit', class: 'secondary', disabled: !isReviewer() }, title));
@@ -150,7 +164,7 @@ function simpleForm(title, path, fixed, fields) {
     const body = { ...fixed };
     for (const [name, , kind] of fields) {
       const x = form.elements[name];
-      body[name] = kind === 'checkbox' ? x.checked : kind === 'number' ? (x.value === '' ? null : Number(x.value))
+      body[name] = kind.startsWith('select:') ? x.value : kind === 'checkbox' ? x.checked : kind === 'number' ? (x.value === '' ? null : Number(x.value))
         : kind === 'list' ? x.value.split(/[\s,]+/).filter(Boolean) : x.value.trim();
     }
     try {

@@ -19,6 +19,7 @@ import org.skyrota.planning.domain.Placement;
 import org.skyrota.planning.domain.PlannerWeights;
 import org.skyrota.planning.domain.ProgramGrant;
 import org.skyrota.planning.domain.Schedule;
+import org.skyrota.planning.domain.TelescopeMount;
 import org.skyrota.planning.domain.Visit;
 import org.skyrota.planning.model.Assignment;
 import org.skyrota.planning.model.Closure;
@@ -128,8 +129,20 @@ public final class CandidateGenerator {
         }
         List<String> telescopeIds = telescopes.stream().map(Telescope::id).toList();
         Schedule schedule = new Schedule(epoch, grid, telescopeIds, closedNights, grants, visits, weights);
+        schedule.setMounts(mounts(telescopes));
         return new PreparedProblem(problem, schedule, telescopes, sites, requestByVisit, Map.copyOf(stats),
                 candidateCount, registry.size());
+    }
+
+    /** Every telescope's mount as a problem fact, for score rules that look at mounts. */
+    public static List<TelescopeMount> mounts(List<Telescope> telescopes) {
+        List<TelescopeMount> mounts = new ArrayList<>();
+        for (int t = 0; t < telescopes.size(); t++) {
+            Telescope tel = telescopes.get(t);
+            mounts.add(new TelescopeMount(t, tel.mount(), tel.needsMeridianFlip(), tel.eastHourAngleLimitDeg(),
+                    tel.westHourAngleLimitDeg()));
+        }
+        return mounts;
     }
 
     /**
@@ -400,6 +413,7 @@ public final class CandidateGenerator {
             Visit visit = new Visit(visitId, request.id(), k, request.programId(), grantShare, request.priority(),
                     priorityWeight(request.priority()), nominal, gapMinutes, length, overhead, candidates, airmass,
                     skyCost, urgency, flags);
+            visit.setHourAngles(hourAngles(candidates));
             if (pubPlacement != null || pub != null) {
                 visit.setPublished(pubPlacement != null ? pubPlacement : registry.get(telescopeIndex(pub.telescopeId()),
                         ceilTo(registry.minuteOf(pub.start()), grid)));
@@ -411,6 +425,35 @@ public final class CandidateGenerator {
             stats.put(visitId, new VisitStats(eligibleCount, nightsConsidered, windowNights, closedWindowNights,
                     observable, longest, nominal, request.filters()));
             return visit;
+        }
+
+        /**
+         * The target's hour angle at each candidate's start, only on telescopes whose mount needs it (a flip or a
+         * limit), NaN elsewhere; null when no telescope needs it, so that ordinary runs pay nothing. Asked once per
+         * site and hour and carried on at the sidereal rate: within an hour a star's apparent right ascension moves by
+         * well under 0.001° and the Sun's by 0.04°, far below any mount's limit.
+         */
+        private float[] hourAngles(List<Placement> candidates) {
+            List<Telescope> telescopes = registry.telescopes();
+            if (telescopes.stream().noneMatch(Telescope::hourAngleMatters)) {
+                return null;
+            }
+            float[] out = new float[candidates.size()];
+            Map<Long, double[]> reference = new HashMap<>();
+            for (int i = 0; i < out.length; i++) {
+                Placement p = candidates.get(i);
+                if (!telescopes.get(p.telescopeIndex()).hourAngleMatters()) {
+                    out[i] = Float.NaN;
+                    continue;
+                }
+                long key = ((long) p.siteIndex() << 32) | (Math.floorDiv(p.startMinute(), 60) & 0xffffffffL);
+                double[] ref = reference.computeIfAbsent(key, k -> new double[] {p.startMinute(),
+                        sky.hourAngleDeg(registry.sites().get(p.siteIndex()), request.target(),
+                                registry.instantOf(p.startMinute()))});
+                out[i] = (float) org.skyrota.sky.coords.HourAngle.normalizeDeg(
+                        ref[1] + (p.startMinute() - ref[0]) * org.skyrota.sky.coords.HourAngle.DEG_PER_MINUTE);
+            }
+            return out;
         }
 
         /**

@@ -46,6 +46,9 @@ public final class PlannerWeights {
     @ConstraintWeight(RuleNames.STABILITY)
     private HardMediumSoftLongScore stability = HardMediumSoftLongScore.ofSoft(200);
 
+    /** Weights of score rules added by plugins, by rule name; not read by OptaPlanner (see the planner's extra rules). */
+    private Map<String, HardMediumSoftLongScore> extra = Map.of();
+
     public static PlannerWeights defaults() {
         return new PlannerWeights();
     }
@@ -74,7 +77,20 @@ public final class PlannerWeights {
         } catch (IllegalAccessException ex) {
             throw new IllegalStateException(ex);
         }
+        copy.extra = extra;
         return copy;
+    }
+
+    /** A copy that also records the weights of the plugins' score rules used in this run. */
+    public PlannerWeights withExtra(Map<String, HardMediumSoftLongScore> extraWeights) {
+        PlannerWeights copy = withOverrides(Map.of());
+        copy.extra = java.util.Collections.unmodifiableMap(new LinkedHashMap<>(extraWeights));
+        return copy;
+    }
+
+    /** The weights of the plugins' score rules in this run, by rule name; empty when there are none. */
+    public Map<String, HardMediumSoftLongScore> extra() {
+        return extra;
     }
 
     /** Every weight by rule name, in the order of {@link RuleNames#ALL}. */

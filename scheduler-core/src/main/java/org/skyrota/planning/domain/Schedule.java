@@ -24,6 +24,8 @@ public class Schedule {
     private List<ClosedNight> closedNights;
     @ProblemFactCollectionProperty
     private List<ProgramGrant> grants;
+    @ProblemFactCollectionProperty
+    private List<TelescopeMount> mounts = List.of();
     @PlanningEntityCollectionProperty
     private List<Visit> visits;
     @ConstraintConfigurationProvider
@@ -65,6 +67,15 @@ public class Schedule {
 
     public List<ClosedNight> closedNights() {
         return closedNights;
+    }
+
+    /** One per telescope whose mount the rules may look at; empty for schedules built without mounts. */
+    public List<TelescopeMount> mounts() {
+        return mounts;
+    }
+
+    public void setMounts(List<TelescopeMount> mounts) {
+        this.mounts = List.copyOf(mounts);
     }
 
     public List<ProgramGrant> grants() {

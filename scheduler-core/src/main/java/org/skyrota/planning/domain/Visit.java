@@ -42,6 +42,8 @@ public class Visit {
     private int[] skyCost;
     private int[] urgencyCost;
     private byte[] flags;
+    /** The target's hour angle at each candidate's start, degrees; null when no telescope's mount needs it. */
+    private float[] hourAngleAtStart;
 
     private Placement published;
     @PlanningPin
@@ -126,6 +128,17 @@ public class Visit {
     }
 
     /**
+     * The target's hour angle at the start of each candidate (same order as the candidates), degrees in [-180, 180),
+     * NaN where it was not computed; or null when no telescope's mount needs hour angles.
+     */
+    public void setHourAngles(float[] atStartDeg) {
+        if (atStartDeg != null && atStartDeg.length != candidateIds.length) {
+            throw new IllegalArgumentException("hour angles of visit " + id + " must have " + candidateIds.length + " entries");
+        }
+        this.hourAngleAtStart = atStartDeg;
+    }
+
+    /**
      * A fresh copy of this visit (unplaced, not pinned, nothing published) without the candidates {@code drop} rejects,
      * for re-planning without asking the sky again.
      */
@@ -150,8 +163,16 @@ public class Visit {
             u[j] = urgencyCost[i];
             f[j] = flags[i];
         }
-        return new Visit(id, requestId, repeatIndex, programId, programGrantShare, priority, priorityWeight,
+        Visit copy = new Visit(id, requestId, repeatIndex, programId, programGrantShare, priority, priorityWeight,
                 nominalMinutes, repeatMinGapMinutes, lengthByTelescope, overheadByTelescope, kept, a, s, u, f);
+        if (hourAngleAtStart != null) {
+            float[] h = new float[n];
+            for (int j = 0; j < n; j++) {
+                h[j] = hourAngleAtStart[indexes.get(j)];
+            }
+            copy.setHourAngles(h);
+        }
+        return copy;
     }
 
     public boolean hasCandidate(Placement p) {
@@ -243,6 +264,22 @@ public class Visit {
 
     public int urgencyCost() {
         return placement == null ? 0 : urgencyCost[candidateIndex];
+    }
+
+    /**
+     * The target's hour angle when the placed visit starts, degrees in [-180, 180), positive west; NaN when unplaced
+     * or not computed for this telescope.
+     */
+    public double hourAngleAtStartDeg() {
+        return placement == null || hourAngleAtStart == null ? Double.NaN : hourAngleAtStart[candidateIndex];
+    }
+
+    /**
+     * The target's hour angle when the placed visit ends, counted on from the start without wrapping (so it may pass
+     * 180): the start's hour angle plus the visit's length at the sidereal rate. NaN as {@link #hourAngleAtStartDeg()}.
+     */
+    public double hourAngleAtEndDeg() {
+        return hourAngleAtStartDeg() + placedMinutes() * org.skyrota.sky.coords.HourAngle.DEG_PER_MINUTE;
     }
 
     public boolean has(byte flag) {

@@ -44,4 +44,15 @@ public interface SkyModel {
 
     /** Conditions for the target at one instant. */
     SkyConditions conditions(Site site, Target target, Instant instant);
+
+    /**
+     * The target's local hour angle at the site (local apparent sidereal time minus apparent right ascension),
+     * degrees in [-180, 180), positive west of the meridian. Asked only for telescopes whose mount cares
+     * ({@link org.skyrota.planning.model.Telescope#hourAngleMatters()}).
+     */
+    default double hourAngleDeg(Site site, Target target, Instant instant) {
+        return target.solar() ? org.skyrota.sky.coords.HourAngle.ofSunDeg(site.longitudeDeg(), instant)
+                : org.skyrota.sky.coords.HourAngle.ofFixedDeg(target.raDeg(), target.decDeg(), site.longitudeDeg(),
+                        instant);
+    }
 }

@@ -53,6 +53,14 @@ public final class SyntheticSky implements SkyModel {
         return new SkyConditions(altitude, airmass, site.darkSkyZenithVMag() - 2.0 * moonlight, 120);
     }
 
+    /** The hour angle of this made-up sky: zero at its culmination, 15° per hour. */
+    @Override
+    public double hourAngleDeg(Site site, Target target, Instant instant) {
+        LocalDate night = ZonedDateTime.ofInstant(instant.minus(Duration.ofHours(12)), site.nightZone()).toLocalDate();
+        double hours = Duration.between(culmination(site, target, night), instant).toSeconds() / 3600.0;
+        return org.skyrota.sky.coords.HourAngle.normalizeDeg(15 * hours);
+    }
+
     private static Instant culmination(Site site, Target target, LocalDate night) {
         double localHour = (target.raDeg() / 15.0 + 12) % 24;
         long minutes = Math.round(localHour * 60) - 4 * (night.toEpochDay() % 365);

@@ -57,19 +57,41 @@ import org.skyrota.planning.solver.moves.RepackMoveFactory;
 public final class Planner {
     private final SkyModel sky;
     private final Class<? extends ConstraintProvider> constraints;
+    private final ExtraRules extraRules;
 
     public Planner(SkyModel sky, Class<? extends ConstraintProvider> constraints) {
-        if (sky == null || constraints == null) {
-            throw new IllegalArgumentException("sky model and constraint provider must not be null");
+        this(sky, constraints, ExtraRules.NONE);
+    }
+
+    /**
+     * A planner whose provider adds score rules beyond the built-in ones (plugins). Their weights are overridden per
+     * run by name, as the built-in ones are ({@link SolveOptions#weightOverrides()}).
+     */
+    public Planner(SkyModel sky, Class<? extends ConstraintProvider> constraints, ExtraRules extraRules) {
+        if (sky == null || constraints == null || extraRules == null) {
+            throw new IllegalArgumentException("sky model, constraint provider and extra rules must not be null");
         }
         this.sky = sky;
         this.constraints = constraints;
+        this.extraRules = extraRules;
+    }
+
+    /** The rules this planner adds to the built-in ones, with their default weights. */
+    public ExtraRules extraRules() {
+        return extraRules;
+    }
+
+    /** A run's weights: the built-in rules' in the configuration OptaPlanner reads, the extra rules' beside them. */
+    private PlannerWeights weightsOf(SolveOptions options) {
+        Map<String, HardMediumSoftLongScore> extra = extraRules.weightsFor(options.weightOverrides());
+        Map<String, HardMediumSoftLongScore> builtIn = new HashMap<>(options.weightOverrides());
+        builtIn.keySet().removeIf(extra::containsKey);
+        return PlannerWeights.defaults().withOverrides(builtIn).withExtra(extra);
     }
 
     /** Candidate generation only: the schedule with every candidate, nothing placed except the pins. */
     public PreparedProblem prepare(PlanningProblem problem, SolveOptions options) {
-        return new CandidateGenerator(sky).prepare(problem,
-                PlannerWeights.defaults().withOverrides(options.weightOverrides()));
+        return new CandidateGenerator(sky).prepare(problem, weightsOf(options));
     }
 
     /** Plans from scratch (pins stay where they are pinned). */
@@ -134,7 +156,8 @@ public final class Planner {
         }
         Schedule schedule = new Schedule(before.schedule().epoch(), before.schedule().gridMinutes(),
                 before.schedule().telescopeIds(), closed, before.schedule().grants(), visits,
-                PlannerWeights.defaults().withOverrides(options.weightOverrides()));
+                weightsOf(options));
+        schedule.setMounts(before.schedule().mounts());
         List<Closure> allClosures = new ArrayList<>(before.problem().closures());
         allClosures.addAll(newClosures);
         PreparedProblem prepared = new PreparedProblem(before.problem().withClosures(allClosures)
@@ -168,7 +191,7 @@ public final class Planner {
         if (!started) {
             GreedyDispatcher.urgencyAware().dispatch(prepared);
         }
-        SolverConfig config = solverConfig(options);
+        SolverConfig config = solverConfig(options, extraWeightsOf(prepared.schedule()));
         SolverFactory<Schedule> factory = SolverFactory.create(config);
         long startNanos = System.nanoTime();
         Schedule solved;
@@ -191,7 +214,8 @@ public final class Planner {
 
     /** Scores and explains a schedule as it stands (for example the greedy baseline's). */
     public PlanResult evaluate(PreparedProblem prepared) {
-        SolverFactory<Schedule> factory = SolverFactory.create(solverConfig(SolveOptions.of(Duration.ofSeconds(1))));
+        SolverFactory<Schedule> factory = SolverFactory.create(solverConfig(SolveOptions.of(Duration.ofSeconds(1)),
+                extraWeightsOf(prepared.schedule())));
         ScoreExplanation<Schedule, HardMediumSoftLongScore> explanation =
                 SolutionManager.<Schedule, HardMediumSoftLongScore>create(factory).explain(prepared.schedule());
         Schedule schedule = prepared.schedule();
@@ -234,7 +258,19 @@ public final class Planner {
                 + " at " + prepared.schedule().instantOf(v.startMinute());
     }
 
-    private SolverConfig solverConfig(SolveOptions options) {
+    /** The extra rules' weights the schedule was prepared with; the defaults for one prepared without them. */
+    private Map<String, HardMediumSoftLongScore> extraWeightsOf(Schedule schedule) {
+        Map<String, HardMediumSoftLongScore> weights = new LinkedHashMap<>(extraRules.defaultWeights());
+        Map<String, HardMediumSoftLongScore> used = schedule.weights() == null ? Map.of() : schedule.weights().extra();
+        used.forEach((name, w) -> {
+            if (weights.containsKey(name)) {
+                weights.put(name, w);
+            }
+        });
+        return weights;
+    }
+
+    private SolverConfig solverConfig(SolveOptions options, Map<String, HardMediumSoftLongScore> extraWeights) {
         TerminationConfig termination = new TerminationConfig()
                 .withSpentLimit(options.timeLimit());
         if (options.unimprovedTimeLimit() != null) {
@@ -243,11 +279,18 @@ public final class Planner {
         if (options.evaluationLimit() > 0) {
             termination.setScoreCalculationCountLimit(options.evaluationLimit());
         }
+        // OptaPlanner makes the provider from its class; the extra rules' weights for this run reach that instance as
+        // a custom property, so two runs with different weights never share state.
+        Map<String, String> properties = new HashMap<>(extraRules.providerProperties());
+        if (!extraRules.defaultWeights().isEmpty()) {
+            properties.put(ExtraRules.WEIGHTS_PROPERTY, ExtraRules.encode(extraWeights));
+        }
         return new SolverConfig()
                 .withSolutionClass(Schedule.class)
                 .withEntityClasses(Visit.class)
                 .withScoreDirectorFactory(new ScoreDirectorFactoryConfig()
                         .withConstraintProviderClass(constraints)
+                        .withConstraintProviderCustomProperties(properties.isEmpty() ? null : properties)
                         // Bavet, not the Drools-based default: several times the score calculation speed here.
                         .withConstraintStreamImplType(ConstraintStreamImplType.BAVET))
                 .withRandomSeed(options.randomSeed())

@@ -155,7 +155,27 @@ public class EquipmentService {
     }
 
     private static void apply(TelescopeForm form, Telescope t) {
+        MountKind kind = form.mountKind() == null ? MountKind.EQUATORIAL : form.mountKind();
+        boolean flips = Boolean.TRUE.equals(form.needsMeridianFlip());
+        double east = form.eastHourAngleLimitDeg() == null ? -180 : form.eastHourAngleLimitDeg();
+        double west = form.westHourAngleLimitDeg() == null ? 180 : form.westHourAngleLimitDeg();
+        if (kind == MountKind.ALT_AZIMUTH) {
+            List<FieldProblem> problems = new java.util.ArrayList<>();
+            if (flips) {
+                problems.add(new FieldProblem("needsMeridianFlip", "only an equatorial mount flips at the meridian"));
+            }
+            if (east != -180) {
+                problems.add(new FieldProblem("eastHourAngleLimitDeg", "hour-angle limits apply to equatorial mounts only"));
+            }
+            if (west != 180) {
+                problems.add(new FieldProblem("westHourAngleLimitDeg", "hour-angle limits apply to equatorial mounts only"));
+            }
+            if (!problems.isEmpty()) {
+                throw new InvalidParametersException(problems);
+            }
+        }
         t.setOptics(form.apertureMm(), form.minAltitudeDeg(), form.slewRateDegPerS(), form.settleSeconds());
+        t.setMount(kind, flips, east, west);
         t.setActive(form.active() == null || form.active());
     }
 

@@ -8,10 +8,13 @@ final class EquipmentViews {
     private EquipmentViews() {}
 
     record TelescopeView(long id, long version, long siteId, String name, double apertureMm, double minAltitudeDeg,
-                         double slewRateDegPerS, double settleSeconds, boolean active) {
+                         double slewRateDegPerS, double settleSeconds, boolean active, String mountKind,
+                         boolean needsMeridianFlip, double eastHourAngleLimitDeg, double westHourAngleLimitDeg) {
         static TelescopeView of(Telescope t) {
             return new TelescopeView(t.getId(), t.getVersion(), t.getSite().getId(), t.getName(), t.getApertureMm(),
-                    t.getMinAltitudeDeg(), t.getSlewRateDegPerS(), t.getSettleSeconds(), t.isActive());
+                    t.getMinAltitudeDeg(), t.getSlewRateDegPerS(), t.getSettleSeconds(), t.isActive(),
+                    t.getMountKind().name(), t.needsMeridianFlip(), t.getEastHourAngleLimitDeg(),
+                    t.getWestHourAngleLimitDeg());
         }
     }
 

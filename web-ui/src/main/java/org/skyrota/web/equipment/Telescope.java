@@ -2,6 +2,8 @@ package org.skyrota.web.equipment;
 
 import jakarta.persistence.Column;
 import jakarta.persistence.Entity;
+import jakarta.persistence.EnumType;
+import jakarta.persistence.Enumerated;
 import jakarta.persistence.FetchType;
 import jakarta.persistence.JoinColumn;
 import jakarta.persistence.ManyToOne;
@@ -37,6 +39,22 @@ public class Telescope extends StoredEntity {
 
     @Column(nullable = false)
     private boolean active;
+
+    @Enumerated(EnumType.STRING)
+    @Column(name = "mount_kind", nullable = false, length = 20)
+    private MountKind mountKind = MountKind.EQUATORIAL;
+
+    /** A German equatorial mount swings to the other side of its pier when the target crosses the meridian. */
+    @Column(name = "needs_meridian_flip", nullable = false)
+    private boolean needsMeridianFlip;
+
+    /** The most eastern (negative) hour angle the mount reaches, degrees; -180 for no limit. */
+    @Column(name = "east_hour_angle_limit_deg", nullable = false)
+    private double eastHourAngleLimitDeg = -180;
+
+    /** The most western (positive) hour angle the mount reaches, degrees; 180 for no limit. */
+    @Column(name = "west_hour_angle_limit_deg", nullable = false)
+    private double westHourAngleLimitDeg = 180;
 
     protected Telescope() {}
 
@@ -83,6 +101,30 @@ public class Telescope extends StoredEntity {
         this.minAltitudeDeg = minAltitudeDeg;
         this.slewRateDegPerS = slewRateDegPerS;
         this.settleSeconds = settleSeconds;
+    }
+
+    public MountKind getMountKind() {
+        return mountKind;
+    }
+
+    public boolean needsMeridianFlip() {
+        return needsMeridianFlip;
+    }
+
+    public double getEastHourAngleLimitDeg() {
+        return eastHourAngleLimitDeg;
+    }
+
+    public double getWestHourAngleLimitDeg() {
+        return westHourAngleLimitDeg;
+    }
+
+    public void setMount(MountKind kind, boolean needsMeridianFlip, double eastHourAngleLimitDeg,
+                         double westHourAngleLimitDeg) {
+        this.mountKind = kind;
+        this.needsMeridianFlip = needsMeridianFlip;
+        this.eastHourAngleLimitDeg = eastHourAngleLimitDeg;
+        this.westHourAngleLimitDeg = westHourAngleLimitDeg;
     }
 
     public boolean isActive() {

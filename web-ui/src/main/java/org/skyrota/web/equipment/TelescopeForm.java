@@ -6,7 +6,12 @@ import jakarta.validation.constraints.NotBlank;
 import jakarta.validation.constraints.NotNull;
 import jakarta.validation.constraints.Size;
 
-/** A telescope as a client sends it; {@code version} is required when editing. */
+
+/**
+ * A telescope as a client sends it; {@code version} is required when editing. The mount fields may be left out:
+ * {@code mountKind} defaults to {@code EQUATORIAL}, {@code needsMeridianFlip} to false, the hour-angle limits to none
+ * (-180 and 180 degrees). A flip or a limit on an {@code ALT_AZIMUTH} mount is refused naming the field.
+ */
 record TelescopeForm(
         Long version,
         @NotNull Long siteId,
@@ -15,4 +20,8 @@ record TelescopeForm(
         @NotNull @DecimalMin("-5") @DecimalMax("90") Double minAltitudeDeg,
         @NotNull @DecimalMin(value = "0", inclusive = false) @DecimalMax("90") Double slewRateDegPerS,
         @NotNull @DecimalMin("0") @DecimalMax("3600") Double settleSeconds,
-        Boolean active) {}
+        Boolean active,
+        MountKind mountKind,
+        Boolean needsMeridianFlip,
+        @DecimalMin("-180") @DecimalMax("0") Double eastHourAngleLimitDeg,
+        @DecimalMin("0") @DecimalMax("180") Double westHourAngleLimitDeg) {}

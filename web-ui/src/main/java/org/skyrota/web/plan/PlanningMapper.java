@@ -178,11 +178,14 @@ public final class PlanningMapper {
     static final double DEFAULT_DARK_SKY_VMAG = 21.5;
 
     static org.skyrota.planning.model.Telescope telescope(Telescope t) {
-        // The server does not store the mount kind; an equatorial mount tracks through the zenith, so the planner
-        // imposes no upper altitude limit.
+        // The server stores no upper altitude limit: an equatorial mount tracks through the zenith, and an
+        // alt-azimuth mount's zenith gap is left to its own control system.
+        boolean altAz = t.getMountKind() == org.skyrota.web.equipment.MountKind.ALT_AZIMUTH;
         return new org.skyrota.planning.model.Telescope(String.valueOf(t.getId()), String.valueOf(t.getSite().getId()),
-                t.getApertureMm() / 1000.0, MountKind.EQUATORIAL, t.getSlewRateDegPerS(), t.getSettleSeconds(),
-                t.getMinAltitudeDeg(), 90);
+                t.getApertureMm() / 1000.0, altAz ? MountKind.ALT_AZIMUTH : MountKind.EQUATORIAL,
+                t.getSlewRateDegPerS(), t.getSettleSeconds(), t.getMinAltitudeDeg(), 90,
+                !altAz && t.needsMeridianFlip(), altAz ? -180 : t.getEastHourAngleLimitDeg(),
+                altAz ? 180 : t.getWestHourAngleLimitDeg());
     }
 
     static org.skyrota.planning.model.Instrument instrument(Instrument i) {

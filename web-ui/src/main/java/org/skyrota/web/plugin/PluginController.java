@@ -5,31 +5,46 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 
+import org.optaplanner.core.api.score.buildin.hardmediumsoftlong.HardMediumSoftLongScore;
+import org.skyrota.constraints.ScoreRule;
+import org.skyrota.constraints.ScoreRules;
 import org.skyrota.plugin.PluginRegistry;
 import org.skyrota.plugin.SkyrotaPlugin;
 import org.springframework.web.bind.annotation.GetMapping;
 import org.springframework.web.bind.annotation.RestController;
 
-/** The plugins this server loaded, and the ones it left out with the reason. */
+/** The plugins this server loaded, the score rules they add with their default weights, and what was left out. */
 @RestController
 class PluginController {
 
     private final PluginRegistry registry;
+    private final ScoreRules scoreRules;
 
-    PluginController(PluginRegistry registry) {
+    PluginController(PluginRegistry registry, ScoreRules scoreRules) {
         this.registry = registry;
+        this.scoreRules = scoreRules;
     }
 
     record PluginView(String id, String name, String version, int apiVersion, List<String> kinds, String description) {}
 
     record ProblemView(String source, String plugin, String problem) {}
 
-    record PluginsView(List<PluginView> plugins, List<ProblemView> problems) {}
+    /** A weight as runs send it in {@code weights}. */
+    record WeightView(long hard, long medium, long soft) {
+        static WeightView of(HardMediumSoftLongScore w) {
+            return new WeightView(w.hardScore(), w.mediumScore(), w.softScore());
+        }
+    }
+
+    /** A plugin's score rule: {@code rule} is the key of its weight in a run's {@code weights}. */
+    record ScoreRuleView(String plugin, String rule, String description, WeightView defaultWeight) {}
+
+    record PluginsView(List<PluginView> plugins, List<ScoreRuleView> scoreRules, List<ProblemView> problems) {}
 
     @GetMapping("/api/plugins")
     PluginsView plugins() {
         Map<String, PluginView> byId = new LinkedHashMap<>();
-        for (Class<? extends SkyrotaPlugin> service : PluginRegistry.CORE_SERVICES) {
+        for (Class<? extends SkyrotaPlugin> service : PluginsConfig.SERVICES) {
             for (SkyrotaPlugin p : registry.plugins(service)) {
                 String kind = kind(service);
                 PluginView seen = byId.get(p.descriptor().id());
@@ -42,9 +57,17 @@ class PluginController {
                         seen == null ? p.description() : seen.description()));
             }
         }
-        List<ProblemView> problems = registry.problems().stream()
-                .map(r -> new ProblemView(r.source(), r.pluginId(), r.problem())).toList();
-        return new PluginsView(List.copyOf(byId.values()), problems);
+        List<ScoreRuleView> rules = new ArrayList<>();
+        for (ScoreRule r : scoreRules.rules()) {
+            rules.add(new ScoreRuleView(r.descriptor().id(), r.ruleName(), r.description(),
+                    WeightView.of(r.defaultWeight())));
+        }
+        List<ProblemView> problems = new ArrayList<>(registry.problems().stream()
+                .map(r -> new ProblemView(r.source(), r.pluginId(), r.problem())).toList());
+        for (String p : scoreRules.problems()) {
+            problems.add(new ProblemView("class path or plugins folder", null, p));
+        }
+        return new PluginsView(List.copyOf(byId.values()), List.copyOf(rules), List.copyOf(problems));
     }
 
     /** "PlanExporter" becomes "plan-exporter". */

@@ -2,11 +2,16 @@ package org.skyrota.web.plugin;
 
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.ArrayList;
 import java.util.List;
+
+import org.skyrota.constraints.ScoreRule;
+import org.skyrota.constraints.ScoreRules;
 
 import org.skyrota.plugin.PluginJars;
 import org.skyrota.plugin.PluginLoadReport;
 import org.skyrota.plugin.PluginRegistry;
+import org.skyrota.plugin.SkyrotaPlugin;
 import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
 import org.springframework.beans.factory.annotation.Value;
@@ -22,6 +27,15 @@ import org.springframework.core.env.Environment;
 class PluginsConfig {
 
     private static final Logger log = LoggerFactory.getLogger(PluginsConfig.class);
+
+    /** The core plugin interfaces and the constraints module's score rules. */
+    static final List<Class<? extends SkyrotaPlugin>> SERVICES;
+
+    static {
+        List<Class<? extends SkyrotaPlugin>> services = new ArrayList<>(PluginRegistry.CORE_SERVICES);
+        services.add(ScoreRule.class);
+        SERVICES = List.copyOf(services);
+    }
 
     @Bean(destroyMethod = "close")
     PluginJars pluginJars(@Value("${skyrota.data-dir}") String dataDir) {
@@ -50,7 +64,7 @@ class PluginsConfig {
         }
         PluginRegistry registry;
         try {
-            registry = PluginRegistry.load(jars.classLoader(), jars.problems(), PluginRegistry.CORE_SERVICES);
+            registry = PluginRegistry.load(jars.classLoader(), jars.problems(), SERVICES);
         } catch (RuntimeException | LinkageError e) {
             // The registry promises not to throw for a plugin; should it still, the server starts without plugins.
             registry = PluginRegistry.of(List.of());
@@ -62,5 +76,15 @@ class PluginsConfig {
         registry.loaded().forEach(p -> log.info("Plugin {} {} ({}) from {}", p.descriptor().id(), p.descriptor().version(),
                 p.service(), p.source()));
         return registry;
+    }
+
+    /** The score rules of the loaded plugins, checked; a rule that fails a check is left out and logged. */
+    @Bean
+    ScoreRules scoreRules(PluginRegistry registry) {
+        ScoreRules rules = ScoreRules.from(registry);
+        for (String problem : rules.problems()) {
+            log.warn("Score rule left out: {}", problem);
+        }
+        return rules;
     }
 }

@@ -20,7 +20,6 @@ import java.util.stream.Collectors;
 import jakarta.annotation.PreDestroy;
 
 import org.optaplanner.core.api.score.buildin.hardmediumsoftlong.HardMediumSoftLongScore;
-import org.skyrota.planning.domain.RuleNames;
 import org.skyrota.planning.solver.PlanResult;
 import org.skyrota.planning.solver.Planner;
 import org.skyrota.planning.solver.Progress;
@@ -149,14 +148,15 @@ public class RunService {
         return RunView.of(run);
     }
 
-    private static Map<String, HardMediumSoftLongScore> weights(RunForm form, List<FieldProblem> problems) {
+    private Map<String, HardMediumSoftLongScore> weights(RunForm form, List<FieldProblem> problems) {
         Map<String, HardMediumSoftLongScore> out = new LinkedHashMap<>();
         if (form.weights() == null) {
             return out;
         }
+        List<String> rules = planners.ruleNames();
         form.weights().forEach((rule, w) -> {
-            if (!RuleNames.ALL.contains(rule)) {
-                problems.add(new FieldProblem("weights." + rule, "no such rule; the rules are " + RuleNames.ALL));
+            if (!rules.contains(rule)) {
+                problems.add(new FieldProblem("weights." + rule, "no such rule; the rules are " + rules));
             } else if (w == null) {
                 problems.add(new FieldProblem("weights." + rule, "must be {hard, medium, soft}"));
             } else {

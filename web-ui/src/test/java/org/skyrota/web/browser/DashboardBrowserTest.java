@@ -320,6 +320,15 @@ class DashboardBrowserTest {
         int draft = get("/api/plans/draft?from=" + LocalDate.now() + "&to=" + LocalDate.now().plusDays(6), basic("coordinator")).statusCode();
         assumeTrue(draft == 200, "Plan walk-through skipped: the server has no GET /api/plans/draft yet (answered " + draft + ")");
         open("#/plan");
+        // The run settings list the plugins' score rules with a weight field per level (the bundled equatorial-mount
+        // plugin adds two rules), filled with the defaults /api/plugins reports.
+        WebElement plugins = wait.until(d -> d.findElement(By.cssSelector("#planner-run details.plugins")));
+        plugins.findElement(By.tagName("summary")).click();
+        wait.until(d -> d.findElement(By.id("plugin-settings")).getText().contains("Meridian flip during visit"));
+        assertThat(browser.findElement(By.id("score-rule-weights")).findElements(By.tagName("input"))).hasSize(6);
+        assertThat(browser.findElement(By.id("plugin-list")).getText()).contains("Equatorial mount: meridian flip");
+        shot("15a-plugin-score-rules");
+        plugins.findElement(By.tagName("summary")).click();
         runPlanner("15-planner-run");
         System.out.println("dashboard: plan view reload from the server's draft (fetch and draw, ms, visits) "
                 + ((JavascriptExecutor) browser).executeScript("return window.__planRenderMs + ' ' + document.getElementById('plan-grid-box').dataset.ready"));

@@ -58,6 +58,22 @@ class PluginApiTest {
         assertThat((List<String>) csv.get("kinds")).contains("plan-exporter", "request-importer");
         assertThat(csv.get("apiVersion")).isEqualTo(1);
         assertThat((String) csv.get("description")).isNotBlank();
+        // The bundled equatorial-mount plugin adds two score rules, listed with their default weights.
+        List<Map<String, Object>> rules = a.json("$.scoreRules");
+        assertThat(rules).anySatisfy(r -> {
+            assertThat(r.get("rule")).isEqualTo("Outside hour-angle limits");
+            assertThat(r.get("plugin")).isEqualTo("equatorial-mount.hour-angle-limits");
+            assertThat(r.get("defaultWeight")).isEqualTo(Map.of("hard", 1, "medium", 0, "soft", 0));
+        });
+        assertThat(rules).anySatisfy(r -> {
+            assertThat(r.get("rule")).isEqualTo("Meridian flip during visit");
+            assertThat(r.get("defaultWeight")).isEqualTo(Map.of("hard", 0, "medium", 0, "soft", 10));
+            assertThat((String) r.get("description")).isNotBlank();
+        });
+        assertThat(plugins).anySatisfy(p -> {
+            assertThat(p.get("id")).isEqualTo("equatorial-mount.meridian-flip");
+            assertThat((List<String>) p.get("kinds")).containsExactly("score-rule");
+        });
         List<Map<String, Object>> problems = a.json("$.problems");
         assertThat(problems).anySatisfy(p -> {
             assertThat((String) p.get("source")).endsWith("broken.jar");

@@ -144,7 +144,9 @@ class PlannerRunApiTest {
     @Test
     void aRunWithWeightsIsAccepted() {
         Answer started = api.post("/api/planner/runs", COORD, "{\"firstNight\":\"2027-01-10\",\"lastNight\":\"2027-01-11\",\"seconds\":1,"
-                + "\"siteIds\":[" + network.siteId + "],\"weights\":{\"Idle time between visits\":{\"soft\":5}}}");
+                + "\"siteIds\":[" + network.siteId + "],\"weights\":{\"Idle time between visits\":{\"soft\":5},"
+                // a score-rule plugin's rule is weighted by name like a built-in one (the bundled equatorial-mount plugin)
+                + "\"Meridian flip during visit\":{\"soft\":3}}}");
         assertThat(started.status()).as(started.body()).isEqualTo(202);
         List<Event> events = api.events("/api/planner/runs/" + started.id("$.id") + "/events", COORD, "done", Duration.ofSeconds(60));
         assertThat((String) JsonPath.read(events.get(events.size() - 1).data(), "$.state")).isEqualTo("finished");
