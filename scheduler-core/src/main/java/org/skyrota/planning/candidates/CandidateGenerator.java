@@ -251,7 +251,9 @@ public final class CandidateGenerator {
             if (prefetched != null) {
                 for (int s = 0; s < prefetched.size(); s++) {
                     Site site = registry.sites().get(s);
-                    double minAlt = Math.max(request.limits().minAltitudeDeg(), site.horizonAltitudeDeg());
+                    // The site's horizon profile is part of the site, applied by the sky model: only the flat
+                    // minimum altitudes go into the key.
+                    double minAlt = request.limits().minAltitudeDeg();
                     Map<LocalDate, List<SkyWindow>> byNight = new HashMap<>();
                     for (SkyWindow w : prefetched.get(s)) {
                         byNight.computeIfAbsent(w.night(), k -> new ArrayList<>()).add(w);
@@ -473,7 +475,7 @@ public final class CandidateGenerator {
 
         private List<SkyWindow> windows(Site site, Telescope telescope, LocalDate night) {
             ObservingLimits l = request.limits();
-            double minAlt = Math.max(l.minAltitudeDeg(), Math.max(site.horizonAltitudeDeg(), telescope.minAltitudeDeg()));
+            double minAlt = Math.max(l.minAltitudeDeg(), telescope.minAltitudeDeg());
             ObservingLimits effective = new ObservingLimits(minAlt, l.maxAirmass(), l.darkness(),
                     l.minMoonSeparationDeg(), l.maxMoonIllumination(), l.minSunSeparationDeg());
             return windowCache.computeIfAbsent(site.id() + "|" + minAlt + "|" + night,
