@@ -399,7 +399,8 @@ public final class CandidateGenerator {
                 urgency[i] = v[2];
                 flags[i] = (byte) v[3];
             }
-            Visit visit = new Visit(visitId, request.id(), k, request.programId(), grantShare, request.priority(),
+            Visit visit = new Visit(visitId, request.id(), k, request.programId(), grantShare, program.weight(),
+                    request.priority(),
                     priorityWeight(request.priority()), nominal, gapMinutes, length, overhead, candidates, airmass,
                     skyCost, urgency, flags);
             if (pubPlacement != null || pub != null) {
