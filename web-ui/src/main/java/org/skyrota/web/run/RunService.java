@@ -21,6 +21,7 @@ import jakarta.annotation.PreDestroy;
 
 import org.optaplanner.core.api.score.buildin.hardmediumsoftlong.HardMediumSoftLongScore;
 import org.skyrota.planning.domain.RuleNames;
+import org.skyrota.planning.solver.Cancellation;
 import org.skyrota.planning.solver.PlanResult;
 import org.skyrota.planning.solver.Planner;
 import org.skyrota.planning.solver.Progress;
@@ -74,6 +75,7 @@ public class RunService {
     private final TransactionTemplate tx;
     private final ExecutorService workers;
     private final Map<Long, Future<?>> futures = new ConcurrentHashMap<>();
+    private final Map<Long, Cancellation> cancellations = new ConcurrentHashMap<>();
     private final Set<Long> cancelling = ConcurrentHashMap.newKeySet();
 
     RunService(PlannerRunRepository runs, PlanRevisionRepository revisions, PlanInputs inputs, PlannerConfig planners,
@@ -141,6 +143,7 @@ public class RunService {
             return saved;
         });
         long id = run.getId();
+        cancellations.put(id, new Cancellation());
         futures.put(id, workers.submit(() -> execute(id, weights)));
         return RunView.of(run);
     }
@@ -183,12 +186,19 @@ public class RunService {
             throw new ConflictException("Run " + id + " has already ended (" + run.getState().apiName() + ")");
         }
         cancelling.add(id);
-        Future<?> future = futures.get(id);
-        if (future != null) {
-            future.cancel(true);
+        // The planner stops its search at the next step and hands back its best plan; the worker then ends the run.
+        // Interrupting the worker instead would tear the solver down mid-step.
+        Cancellation cancellation = cancellations.get(id);
+        if (cancellation != null) {
+            cancellation.cancel();
         }
-        if (future == null || future.isCancelled()) {
-            // It may never have started (or its worker is gone): end it here unless the worker already did.
+        Future<?> future = futures.get(id);
+        if (future == null || run.getState() == RunState.QUEUED) {
+            // It may never have started (or its worker is gone): keep it from starting and end it here, unless the
+            // worker already did.
+            if (future != null) {
+                future.cancel(false);
+            }
             endIfActive(id, RunState.CANCELLED, null, "cancelled by " + CurrentUser.get().username());
         }
         long until = System.nanoTime() + Duration.ofSeconds(10).toNanos();
@@ -235,10 +245,12 @@ public class RunService {
                 }
                 return inputs.problem(first, last, siteIds, pins, nights);
             });
-            SolveOptions options = SolveOptions.of(Duration.ofSeconds(run.getTimeLimitSeconds())).withWeights(weights);
+            SolveOptions options = SolveOptions.of(Duration.ofSeconds(run.getTimeLimitSeconds())).withWeights(weights)
+                    .withCancellation(cancellations.get(id));
             long limitNanos = Duration.ofSeconds(run.getTimeLimitSeconds()).toNanos();
             PlanResult result = planners.fresh().solve(mapped.problem(), options, p -> events.progress(id, progressData(p, limitNanos)));
             if (cancelling.contains(id) || Thread.currentThread().isInterrupted()) {
+                // The best plan so far is not written as a draft: a cancelled run changes nothing but its own state.
                 endIfActive(id, RunState.CANCELLED, result.score().toString(), "cancelled");
                 return;
             }
@@ -254,6 +266,7 @@ public class RunService {
                     cancelled ? "cancelled" : "The planner failed: " + why);
         } finally {
             futures.remove(id);
+            cancellations.remove(id);
             cancelling.remove(id);
         }
     }
