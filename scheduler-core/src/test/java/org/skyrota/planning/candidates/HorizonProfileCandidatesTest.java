@@ -120,6 +120,25 @@ class HorizonProfileCandidatesTest {
         assertThat(openCount).isGreaterThan(behindWall.size());
     }
 
+    @Test
+    void theSunBehindAWallIsHiddenLikeAnyTarget() {
+        // Caution: solar visits need a certified solar filter over the front of the optics; this only checks times.
+        // The night of 15 January runs noon to noon: the Sun (dec about −21°, so at most about 24° high) is up that
+        // afternoon in the south-west and the next morning in the south-east, always in the southern half.
+        ObservingLimits sunLimits = new ObservingLimits(10, Double.POSITIVE_INFINITY,
+                org.skyrota.planning.model.DarknessLimit.ANY, 0, 1, 0);
+        List<SkyWindow> flat = sky.windows(site("open", HorizonProfile.flat()), Target.sun(), sunLimits, NIGHT);
+        List<SkyWindow> south = sky.windows(site("walled", SOUTH_WALL), Target.sun(), sunLimits, NIGHT);
+        List<SkyWindow> east = sky.windows(site("east", EAST_WALL), Target.sun(), sunLimits, NIGHT);
+
+        assertThat(flat).hasSize(2);
+        assertThat(south).isEmpty();
+        // The east wall hides the climbing morning Sun and the last minutes before noon; the afternoon stays.
+        assertThat(east).hasSize(1);
+        assertThat(east.get(0).end()).isEqualTo(flat.get(0).end());
+        assertThat(east.get(0).start()).isAfter(flat.get(0).start());
+    }
+
     private PreparedProblem prepare(HorizonProfile wall) {
         Request request = new Request("r1", "lab", "member", SOUTHERN, List.of(new ExposureStep("V", 60, 30)),
                 ObservingLimits.dark(MIN_ALTITUDE_DEG), NIGHT, NIGHT, 1, null, null, 3);
