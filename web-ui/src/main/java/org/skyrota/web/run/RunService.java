@@ -76,7 +76,8 @@ public class RunService {
     private final ExecutorService workers;
     private final Map<Long, Future<?>> futures = new ConcurrentHashMap<>();
     private final Map<Long, Cancellation> cancellations = new ConcurrentHashMap<>();
-    private final Set<Long> cancelling = ConcurrentHashMap.newKeySet();
+    /** Runs being cancelled, with who cancelled them (the worker ends the run and names them). */
+    private final Map<Long, String> cancelling = new ConcurrentHashMap<>();
 
     RunService(PlannerRunRepository runs, PlanRevisionRepository revisions, PlanInputs inputs, PlannerConfig planners,
                RunEvents events, AuditLog audit, JsonMapper json, PlatformTransactionManager transactions) {
@@ -185,7 +186,8 @@ public class RunService {
         if (!run.getState().isActive()) {
             throw new ConflictException("Run " + id + " has already ended (" + run.getState().apiName() + ")");
         }
-        cancelling.add(id);
+        String by = "cancelled by " + CurrentUser.get().username();
+        cancelling.put(id, by);
         // The planner stops its search at the next step and hands back its best plan; the worker then ends the run.
         // Interrupting the worker instead would tear the solver down mid-step.
         Cancellation cancellation = cancellations.get(id);
@@ -199,7 +201,7 @@ public class RunService {
             if (future != null) {
                 future.cancel(false);
             }
-            endIfActive(id, RunState.CANCELLED, null, "cancelled by " + CurrentUser.get().username());
+            endIfActive(id, RunState.CANCELLED, null, by);
         }
         long until = System.nanoTime() + Duration.ofSeconds(10).toNanos();
         while (find(id).getState().isActive() && System.nanoTime() < until) {
@@ -249,21 +251,22 @@ public class RunService {
                     .withCancellation(cancellations.get(id));
             long limitNanos = Duration.ofSeconds(run.getTimeLimitSeconds()).toNanos();
             PlanResult result = planners.fresh().solve(mapped.problem(), options, p -> events.progress(id, progressData(p, limitNanos)));
-            if (cancelling.contains(id) || Thread.currentThread().isInterrupted()) {
+            if (cancelling.containsKey(id) || Thread.currentThread().isInterrupted()) {
                 // The best plan so far is not written as a draft: a cancelled run changes nothing but its own state.
-                endIfActive(id, RunState.CANCELLED, result.score().toString(), "cancelled");
+                endIfActive(id, RunState.CANCELLED, result.score().toString(),
+                        cancelling.getOrDefault(id, "cancelled"));
                 return;
             }
             tx.executeWithoutResult(status -> writeDraft(id, mapped, result, first, last));
             events.done(id, doneData(find(id)));
         } catch (RuntimeException | Error e) {
-            boolean cancelled = cancelling.contains(id);
+            boolean cancelled = cancelling.containsKey(id);
             if (!cancelled) {
                 log.warn("Planner run {} failed", id, e);
             }
             String why = e.getMessage() == null ? e.getClass().getSimpleName() : e.getMessage();
             endIfActive(id, cancelled ? RunState.CANCELLED : RunState.FAILED, null,
-                    cancelled ? "cancelled" : "The planner failed: " + why);
+                    cancelled ? cancelling.getOrDefault(id, "cancelled") : "The planner failed: " + why);
         } finally {
             futures.remove(id);
             cancellations.remove(id);
