@@ -10,30 +10,39 @@ import org.optaplanner.core.api.score.stream.uni.UniConstraintCollector;
 import org.skyrota.planning.domain.Visit;
 
 /**
- * Collects placed minutes per program and returns the sum over programs of the squared deviation between the
- * program's share of placed time and its share of the grants, in (per mille)². Programs with nothing placed
- * count too, because unplaced visits are collected as well. Incremental: each visit adds and removes itself.
+ * Collects placed minutes per program and returns the sum over programs of the program's weight times the squared
+ * deviation between its share of placed time and its share of the grants, in (per mille)². Programs with nothing
+ * placed count too, because unplaced visits are collected as well. Incremental: each visit adds and removes itself.
  */
 final class ProgramShareCollector implements UniConstraintCollector<Visit, ProgramShareCollector.Shares, Long> {
 
+    /** Placed minutes and visit count of one program, with its grant share and weight (the same on all its visits). */
+    private static final class Entry {
+        long placedMinutes;
+        int visits;
+        double grantShareMille;
+        double weight;
+    }
+
     static final class Shares {
-        private final Map<String, long[]> byProgram = new HashMap<>();
+        private final Map<String, Entry> byProgram = new HashMap<>();
         private long totalPlaced;
 
         Runnable add(Visit v) {
             long minutes = v.placedMinutes();
-            long[] entry = byProgram.computeIfAbsent(v.programId(), k -> new long[3]);
-            entry[0] += minutes;
-            entry[1]++;
-            entry[2] = Math.round(v.programGrantShare() * 1_000_000);
+            Entry entry = byProgram.computeIfAbsent(v.programId(), k -> new Entry());
+            entry.placedMinutes += minutes;
+            entry.visits++;
+            entry.grantShareMille = 1000.0 * v.programGrantShare();
+            entry.weight = v.programWeight();
             totalPlaced += minutes;
             String program = v.programId();
             return () -> {
-                long[] e = byProgram.get(program);
-                e[0] -= minutes;
-                e[1]--;
+                Entry e = byProgram.get(program);
+                e.placedMinutes -= minutes;
+                e.visits--;
                 totalPlaced -= minutes;
-                if (e[1] == 0) {
+                if (e.visits == 0) {
                     byProgram.remove(program);
                 }
             };
@@ -44,10 +53,10 @@ final class ProgramShareCollector implements UniConstraintCollector<Visit, Progr
                 return 0;
             }
             double sum = 0;
-            for (long[] e : byProgram.values()) {
-                double shareMille = 1000.0 * e[0] / totalPlaced;
-                double grantMille = e[2] / 1000.0;
-                sum += (shareMille - grantMille) * (shareMille - grantMille);
+            for (Entry e : byProgram.values()) {
+                double shareMille = 1000.0 * e.placedMinutes / totalPlaced;
+                double off = shareMille - e.grantShareMille;
+                sum += e.weight * off * off;
             }
             return Math.round(sum);
         }

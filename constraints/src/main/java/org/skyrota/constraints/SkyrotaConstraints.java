@@ -154,7 +154,8 @@ public final class SkyrotaConstraints implements ConstraintProvider {
     }
 
     Constraint programFairness(ConstraintFactory factory) {
-        // Each program's share of the placed time should match its share of the grants (squared deviation).
+        // Each program's share of the placed time should match its share of the grants (squared deviation, times
+        // the program's weight: a program of weight 2 counts twice, so a lighter program falls short first).
         return factory.forEachIncludingNullVars(Visit.class)
                 .groupBy(new ProgramShareCollector())
                 .filter(deviation -> deviation > 0)

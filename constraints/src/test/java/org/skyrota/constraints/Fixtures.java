@@ -31,6 +31,7 @@ final class Fixtures {
         private String request;
         private String program = "P1";
         private double grantShare = 0.5;
+        private double programWeight = 1;
         private int priority = 3;
         private int length = 30;
         private int overhead = 0;
@@ -57,6 +58,13 @@ final class Fixtures {
         VisitBuilder program(String p, double share) {
             program = p;
             grantShare = share;
+            return this;
+        }
+
+        VisitBuilder program(String p, double share, double weight) {
+            program = p;
+            grantShare = share;
+            programWeight = weight;
             return this;
         }
 
@@ -115,7 +123,7 @@ final class Fixtures {
                 u[0] = urgency;
                 f[0] = flags;
             }
-            Visit v = new Visit(id, request, 0, program, grantShare, priority, priority, length, gap,
+            Visit v = new Visit(id, request, 0, program, grantShare, programWeight, priority, priority, length, gap,
                     new int[] {length, length}, new int[] {overhead, overhead}, candidates, a, s, u, f);
             v.setPlacement(placement);
             v.setPublished(published);

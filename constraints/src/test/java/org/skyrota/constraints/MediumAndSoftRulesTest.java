@@ -24,6 +24,13 @@ class MediumAndSoftRulesTest {
         }
 
         @Test
+        void theProgramsWeightDoesNotScaleIt() {
+            // Program weight belongs to fairness; priority alone ranks visits across programs (README, score rules).
+            Visit heavyProgram = visit("heavyProgram").program("A", 0.5, 2).priority(5).length(40).build();
+            verifier.verifyThat(SkyrotaConstraints::unplacedVisit).given(heavyProgram).penalizesBy(200);
+        }
+
+        @Test
         void aPlacedVisitCostsNothing() {
             Visit placed = visit("placed").priority(5).length(40).at(at(0, 0)).build();
             verifier.verifyThat(SkyrotaConstraints::unplacedVisit).given(placed).penalizesBy(0);
@@ -108,6 +115,32 @@ class MediumAndSoftRulesTest {
             Visit a = visit("a").program("A", 0.5).length(30).at(at(0, 0)).build();
             Visit b = visit("b").program("B", 0.5).length(30).at(at(1, 0)).build();
             verifier.verifyThat(SkyrotaConstraints::programFairness).given(a, b).penalizesBy(0);
+        }
+
+        @Test
+        void aProgramOfWeightTwoCountsTwice() {
+            // As the first case, but program A weighs 2: 2 × 500² + 1 × 500² = 750000.
+            Visit placed = visit("placed").program("A", 0.5, 2).at(at(0, 0)).build();
+            Visit leftOut = visit("leftOut").program("B", 0.5, 1).build();
+            verifier.verifyThat(SkyrotaConstraints::programFairness).given(placed, leftOut).penalizesBy(750_000);
+        }
+
+        @Test
+        void whenTimeIsShortLeavingOutALighterProgramCostsLessThanLeavingOutAHeavierOne() {
+            // Three programs granted a third each (333.3‰), room for two of three equal visits. The one left out is
+            // 333.3‰ short (111111.1 per mille²), the two placed are 166.7‰ over (27777.8 each); A weighs 2.
+            // Leaving out A: 2 × 111111.1 + 27777.8 + 27777.8 = 277777.8 → 277778.
+            verifier.verifyThat(SkyrotaConstraints::programFairness)
+                    .given(visit("a").program("A", 1.0 / 3, 2).build(),
+                            visit("b").program("B", 1.0 / 3, 1).at(at(0, 0)).build(),
+                            visit("c").program("C", 1.0 / 3, 1).at(at(1, 0)).build())
+                    .penalizesBy(277_778);
+            // Leaving out B: 2 × 27777.8 + 111111.1 + 27777.8 = 194444.4 → 194444.
+            verifier.verifyThat(SkyrotaConstraints::programFairness)
+                    .given(visit("a").program("A", 1.0 / 3, 2).at(at(0, 0)).build(),
+                            visit("b").program("B", 1.0 / 3, 1).build(),
+                            visit("c").program("C", 1.0 / 3, 1).at(at(1, 0)).build())
+                    .penalizesBy(194_444);
         }
     }
 

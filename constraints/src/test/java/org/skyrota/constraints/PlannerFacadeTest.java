@@ -9,6 +9,9 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
 import java.util.Set;
+import java.util.concurrent.CompletableFuture;
+import java.util.concurrent.CopyOnWriteArrayList;
+import java.util.concurrent.TimeUnit;
 
 import org.junit.jupiter.api.Test;
 import org.optaplanner.core.api.score.buildin.hardmediumsoftlong.HardMediumSoftLongScore;
@@ -21,6 +24,7 @@ import org.skyrota.planning.model.Closure;
 import org.skyrota.planning.model.ExposureStep;
 import org.skyrota.planning.model.PlanningProblem;
 import org.skyrota.planning.model.Request;
+import org.skyrota.planning.solver.Cancellation;
 import org.skyrota.planning.solver.LeftOutVisit;
 import org.skyrota.planning.solver.PlanResult;
 import org.skyrota.planning.solver.PlannedVisit;
@@ -199,6 +203,61 @@ class PlannerFacadeTest {
         });
         assertThat(reasonOf(nowhere, "sun")).contains("certified solar filter")
                 .contains(org.skyrota.planning.model.SolarSafety.CAUTION);
+    }
+
+    @Test
+    void cancellingALongRunStopsItWithinTwoSecondsWithAValidPlan() throws Exception {
+        // 200 visits of up to 90 min on two telescopes over five 6-hour windows: oversubscribed, so a 60 s run would
+        // use all of its time. Prepared first so that the cancel lands in the search, not in candidate generation.
+        PlanningProblem problem = TestProblems.random(7, 2, 5, 200);
+        Cancellation cancellation = new Cancellation();
+        SolveOptions longRun = SolveOptions.of(Duration.ofSeconds(60)).withSeed(3).withCancellation(cancellation);
+        PreparedProblem prepared = planner.prepare(problem, longRun);
+        List<Progress> progress = new CopyOnWriteArrayList<>();
+        CompletableFuture<PlanResult> run = CompletableFuture.supplyAsync(
+                () -> planner.solvePrepared(prepared, longRun, progress::add));
+
+        Thread.sleep(1500);
+        assertThat(run).isNotDone();
+        long cancelledAt = System.nanoTime();
+        cancellation.cancel();
+        PlanResult result = run.get(10, TimeUnit.SECONDS);
+        Duration toStop = Duration.ofNanos(System.nanoTime() - cancelledAt);
+
+        assertThat(toStop).isLessThan(Duration.ofSeconds(2));
+        assertValid(result);
+        // The plan returned is the best the search reached, reported last to the listener as well.
+        assertThat(progress).isNotEmpty();
+        assertThat(progress.get(progress.size() - 1).bestScore()).isEqualTo(result.score());
+        assertThat(progress.get(progress.size() - 1).elapsed()).isLessThan(Duration.ofSeconds(10));
+    }
+
+    @Test
+    void aRunCancelledBeforeItStartsReturnsItsStartPlanAtOnce() {
+        Cancellation cancellation = new Cancellation();
+        cancellation.cancel();
+        long started = System.nanoTime();
+
+        PlanResult result = planner.solve(TestProblems.random(7, 2, 3, 60),
+                SolveOptions.of(Duration.ofSeconds(60)).withCancellation(cancellation));
+
+        assertThat(Duration.ofNanos(System.nanoTime() - started)).isLessThan(Duration.ofSeconds(20));
+        assertValid(result);
+    }
+
+    /** Valid: no hard rule broken by the score's account, and, checked apart from it, no two visits on one telescope at once. */
+    private static void assertValid(PlanResult result) {
+        assertThat(result.hardViolations()).isEmpty();
+        assertThat(result.score().hardScore()).isZero();
+        assertThat(result.planned()).isNotEmpty();
+        Map<String, List<PlannedVisit>> byTelescope = new java.util.HashMap<>();
+        result.planned().forEach(p -> byTelescope.computeIfAbsent(p.telescopeId(), k -> new ArrayList<>()).add(p));
+        for (List<PlannedVisit> visits : byTelescope.values()) {
+            visits.sort(java.util.Comparator.comparing(PlannedVisit::start));
+            for (int i = 1; i < visits.size(); i++) {
+                assertThat(visits.get(i).start()).isAfterOrEqualTo(visits.get(i - 1).end());
+            }
+        }
     }
 
     private static String reasonOf(PlanResult result, String visitId) {

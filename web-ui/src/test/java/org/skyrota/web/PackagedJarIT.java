@@ -109,6 +109,7 @@ class PackagedJarIT {
         for (String id : List.of("csv", "icalendar", "voevent", "conditions-file", "solar-system", "small-bodies")) {
             assertThat(plugins.body()).contains("\"id\":\"" + id + "\"");
         }
+        assertThat(plugins.body()).contains("\"scoreRules\":[").contains("equatorial-mount");
         assertThat(readLog()).doesNotContain("Plugin left out");
     }
 

@@ -264,7 +264,9 @@ public final class CandidateGenerator {
             if (prefetched != null) {
                 for (int s = 0; s < prefetched.size(); s++) {
                     Site site = registry.sites().get(s);
-                    double minAlt = Math.max(request.limits().minAltitudeDeg(), site.horizonAltitudeDeg());
+                    // The site's horizon profile is part of the site, applied by the sky model: only the flat
+                    // minimum altitudes go into the key.
+                    double minAlt = request.limits().minAltitudeDeg();
                     Map<LocalDate, List<SkyWindow>> byNight = new HashMap<>();
                     for (SkyWindow w : prefetched.get(s)) {
                         byNight.computeIfAbsent(w.night(), k -> new ArrayList<>()).add(w);
@@ -410,7 +412,8 @@ public final class CandidateGenerator {
                 urgency[i] = v[2];
                 flags[i] = (byte) v[3];
             }
-            Visit visit = new Visit(visitId, request.id(), k, request.programId(), grantShare, request.priority(),
+            Visit visit = new Visit(visitId, request.id(), k, request.programId(), grantShare, program.weight(),
+                    request.priority(),
                     priorityWeight(request.priority()), nominal, gapMinutes, length, overhead, candidates, airmass,
                     skyCost, urgency, flags);
             visit.setHourAngles(hourAngles(candidates));
@@ -516,7 +519,7 @@ public final class CandidateGenerator {
 
         private List<SkyWindow> windows(Site site, Telescope telescope, LocalDate night) {
             ObservingLimits l = request.limits();
-            double minAlt = Math.max(l.minAltitudeDeg(), Math.max(site.horizonAltitudeDeg(), telescope.minAltitudeDeg()));
+            double minAlt = Math.max(l.minAltitudeDeg(), telescope.minAltitudeDeg());
             ObservingLimits effective = new ObservingLimits(minAlt, l.maxAirmass(), l.darkness(),
                     l.minMoonSeparationDeg(), l.maxMoonIllumination(), l.minSunSeparationDeg());
             return windowCache.computeIfAbsent(site.id() + "|" + minAlt + "|" + night,

@@ -29,6 +29,7 @@ public class Visit {
     private int repeatIndex;
     private String programId;
     private double programGrantShare;
+    private double programWeight;
     private int priority;
     private long priorityWeight;
     private int nominalMinutes;
@@ -58,10 +59,11 @@ public class Visit {
     }
 
     /**
-     * @param candidates sorted by {@link Placement#id()}, with the cost arrays in the same order
+     * @param programWeight the program's weight in the fairness rule, positive (1 for an ordinary program)
+     * @param candidates    sorted by {@link Placement#id()}, with the cost arrays in the same order
      */
     public Visit(String id, String requestId, int repeatIndex, String programId, double programGrantShare,
-                 int priority, long priorityWeight,
+                 double programWeight, int priority, long priorityWeight,
                  int nominalMinutes, int repeatMinGapMinutes, int[] lengthByTelescope, int[] overheadByTelescope,
                  List<Placement> candidates, int[] airmassCost, int[] skyCost, int[] urgencyCost, byte[] flags) {
         this.id = id;
@@ -69,6 +71,10 @@ public class Visit {
         this.repeatIndex = repeatIndex;
         this.programId = programId;
         this.programGrantShare = programGrantShare;
+        if (!(programWeight > 0) || Double.isInfinite(programWeight)) {
+            throw new IllegalArgumentException("programWeight of visit " + id + " must be positive, got " + programWeight);
+        }
+        this.programWeight = programWeight;
         this.priority = priority;
         this.priorityWeight = priorityWeight;
         this.nominalMinutes = nominalMinutes;
@@ -163,8 +169,8 @@ public class Visit {
             u[j] = urgencyCost[i];
             f[j] = flags[i];
         }
-        Visit copy = new Visit(id, requestId, repeatIndex, programId, programGrantShare, priority, priorityWeight,
-                nominalMinutes, repeatMinGapMinutes, lengthByTelescope, overheadByTelescope, kept, a, s, u, f);
+        Visit copy = new Visit(id, requestId, repeatIndex, programId, programGrantShare, programWeight, priority,
+                priorityWeight, nominalMinutes, repeatMinGapMinutes, lengthByTelescope, overheadByTelescope, kept, a, s, u, f);
         if (hourAngleAtStart != null) {
             float[] h = new float[n];
             for (int j = 0; j < n; j++) {
@@ -200,6 +206,11 @@ public class Visit {
     /** The program's share of all grants, 0..1. */
     public double programGrantShare() {
         return programGrantShare;
+    }
+
+    /** The program's weight in the fairness rule: a program of weight 2 counts twice there. */
+    public double programWeight() {
+        return programWeight;
     }
 
     public int priority() {

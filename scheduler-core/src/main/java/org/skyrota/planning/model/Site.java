@@ -3,6 +3,8 @@ package org.skyrota.planning.model;
 import java.time.ZoneId;
 import java.util.Objects;
 
+import org.skyrota.sky.site.HorizonProfile;
+
 /**
  * An observing site as the planner sees it.
  *
@@ -12,24 +14,31 @@ import java.util.Objects;
  * @param longitudeDeg        longitude in degrees, east-positive, -180..180
  * @param elevationM          height above sea level in metres
  * @param zone                IANA time zone, or null where only the longitude is known
- * @param horizonAltitudeDeg  lowest usable altitude in degrees set by the local horizon (trees, domes); 0 for a flat horizon
+ * @param horizon             lowest usable apparent altitude by azimuth set by the local horizon (trees, buildings,
+ *                            dome limits), piecewise linear between its points; {@link HorizonProfile#flat()} for none;
+ *                            not null. The sky model applies it to every window at this site.
  * @param darkSkyZenithVMag   zenith sky brightness on a moonless astronomical night, V mag per square arcsecond
  */
 public record Site(String id, String name, double latitudeDeg, double longitudeDeg, double elevationM,
-                   ZoneId zone, double horizonAltitudeDeg, double darkSkyZenithVMag) {
+                   ZoneId zone, HorizonProfile horizon, double darkSkyZenithVMag) {
     public Site {
         Checks.notBlank("site id", id);
         Checks.notBlank("site name", name);
         Checks.range("latitudeDeg of site " + id, latitudeDeg, -90, 90);
         Checks.range("longitudeDeg of site " + id, longitudeDeg, -180, 180);
-        Checks.range("horizonAltitudeDeg of site " + id, horizonAltitudeDeg, -5, 60);
+        Checks.notNull("horizon of site " + id + " (HorizonProfile.flat() for none)", horizon);
         Checks.range("darkSkyZenithVMag of site " + id, darkSkyZenithVMag, 15, 23);
     }
 
     public static Site of(String id, String name, double latitudeDeg, double longitudeDeg, double elevationM,
                           String zoneId, double darkSkyZenithVMag) {
         return new Site(id, name, latitudeDeg, longitudeDeg, elevationM,
-                zoneId == null ? null : ZoneId.of(zoneId), 0.0, darkSkyZenithVMag);
+                zoneId == null ? null : ZoneId.of(zoneId), HorizonProfile.flat(), darkSkyZenithVMag);
+    }
+
+    /** This site with another horizon profile, not null. */
+    public Site withHorizon(HorizonProfile newHorizon) {
+        return new Site(id, name, latitudeDeg, longitudeDeg, elevationM, zone, newHorizon, darkSkyZenithVMag);
     }
 
     /** The zone that defines this site's nights: its IANA zone, else local mean solar time rounded to the second. */

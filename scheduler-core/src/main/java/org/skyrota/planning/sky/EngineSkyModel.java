@@ -16,8 +16,6 @@ import org.skyrota.sky.atmosphere.Airmass;
 import org.skyrota.sky.atmosphere.MoonlightSkyBrightness;
 import org.skyrota.sky.coords.Horizontal;
 import org.skyrota.sky.events.SkyAtSite;
-import org.skyrota.sky.site.HorizonPoint;
-import org.skyrota.sky.site.HorizonProfile;
 import org.skyrota.sky.site.Night;
 import org.skyrota.sky.site.SiteLocation;
 import org.skyrota.sky.visibility.BatchVisibility;
@@ -31,6 +29,8 @@ import org.skyrota.sky.visibility.VisibilityWindow;
  * {@link SkyAtSite} (apparent altitude, Kasten–Young airmass, Krisciunas–Schaefer sky brightness, Sun separation).
  * The Sun and Moon at a site are cached per minute, because thousands of targets ask about the same minutes.
  * Solar targets get daytime windows: the Sun's centre above the visit's minimum altitude, sampled each minute.
+ * The site's horizon profile takes part in every window: the engine raises the minimum altitude towards the
+ * azimuths the profile covers, for fixed targets and the Sun alike.
  */
 public final class EngineSkyModel implements SkyModel {
     private final Map<String, SiteLocation> locations = new ConcurrentHashMap<>();
@@ -105,8 +105,10 @@ public final class EngineSkyModel implements SkyModel {
         Instant start = null;
         double maxAlt = -90;
         for (Instant t = night.start(); !t.isAfter(night.end()); t = t.plusSeconds(60)) {
-            double altitude = sky.refract(sky.sunAltitudeDeg(SkyAtSite.toEpochSecond(t)));
-            boolean up = altitude >= Math.max(limits.minAltitudeDeg(), site.horizonAltitudeDeg());
+            double epochSecond = SkyAtSite.toEpochSecond(t);
+            double altitude = sky.refract(sky.sunAltitudeDeg(epochSecond));
+            boolean up = altitude >= limits.minAltitudeDeg()
+                    && (site.horizon().isFlat() || altitude >= site.horizon().minAltitudeDeg(sunAzimuthDeg(sky, epochSecond)));
             if (up && start == null) {
                 start = t;
                 maxAlt = altitude;
@@ -123,6 +125,14 @@ public final class EngineSkyModel implements SkyModel {
         return out;
     }
 
+    /** The Sun's azimuth, degrees east of north, from its apparent place of date and the local sidereal time. */
+    private static double sunAzimuthDeg(SkyAtSite sky, double epochSecond) {
+        double[] sun = new double[2];
+        sky.sunRaDec(epochSecond, sun);
+        double hourAngleRad = sky.localSiderealTimeRad(epochSecond) - sun[0];
+        return Math.toDegrees(Horizontal.azimuthRad(hourAngleRad, sun[1], Math.toRadians(sky.site().latitudeDeg())));
+    }
+
     private SkyAtSite sky(Site site) {
         return skies.get().computeIfAbsent(site.id(), k -> new SkyAtSite(location(site)));
     }
@@ -130,9 +140,7 @@ public final class EngineSkyModel implements SkyModel {
     private SiteLocation location(Site site) {
         return locations.computeIfAbsent(site.id(), k -> {
             SiteLocation base = SiteLocation.of(site.latitudeDeg(), site.longitudeDeg(), site.elevationM(), site.zone());
-            HorizonProfile horizon = site.horizonAltitudeDeg() <= 0 ? HorizonProfile.flat()
-                    : HorizonProfile.of(List.of(HorizonPoint.of(0, site.horizonAltitudeDeg())));
-            return base.withHorizon(horizon).withSky(site.darkSkyZenithVMag(), base.extinctionMagPerAirmass());
+            return base.withHorizon(site.horizon()).withSky(site.darkSkyZenithVMag(), base.extinctionMagPerAirmass());
         });
     }
 

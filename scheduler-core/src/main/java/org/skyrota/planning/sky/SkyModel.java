@@ -15,8 +15,8 @@ import org.skyrota.planning.model.Target;
 public interface SkyModel {
 
     /**
-     * The maximal intervals of the night (local noon to local noon) in which every limit holds.
-     * A night may hold several windows or none.
+     * The maximal intervals of the night (local noon to local noon) in which every limit holds, the site's horizon
+     * profile ({@link Site#horizon()}) included. A night may hold several windows or none.
      */
     List<SkyWindow> windows(Site site, Target target, ObservingLimits limits, LocalDate night);
 

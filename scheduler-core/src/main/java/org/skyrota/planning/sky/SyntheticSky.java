@@ -16,7 +16,8 @@ import org.skyrota.planning.model.Target;
  * An invented, perfectly regular sky for tests and optimiser benchmarks: every night is dark from 20:00 to 05:00
  * local time, a target culminates at local hour {@code (ra / 15 + 12) mod 24} shifted 4 minutes earlier each
  * night, and it is above its limit for {@link #halfWindow} either side of culmination. Airmass grows with the hour
- * angle, the sky brightens with an invented 30-night moonlight cycle. It measures the optimiser, never the sky:
+ * angle, the sky brightens with an invented 30-night moonlight cycle; altitude limits and the site's horizon
+ * profile are not modelled. It measures the optimiser, never the sky:
  * real plans use the sky engine.
  */
 public final class SyntheticSky implements SkyModel {

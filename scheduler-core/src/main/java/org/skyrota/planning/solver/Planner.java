@@ -8,6 +8,7 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Set;
+import java.util.concurrent.CancellationException;
 import java.util.concurrent.ExecutionException;
 import java.util.function.Consumer;
 import java.util.stream.Collectors;
@@ -182,7 +183,10 @@ public final class Planner {
     /** Default weight of "Moved from published plan" when re-planning: two hours of priority-1 time per moved visit. */
     public static final HardMediumSoftLongScore REPLAN_STABILITY = HardMediumSoftLongScore.ofMedium(120);
 
-    /** Solves an already prepared problem in place. */
+    /**
+     * Solves an already prepared problem in place. A cancelled {@link SolveOptions#cancellation()} ends the search
+     * early with the best plan found so far, scored and explained like any other.
+     */
     public PlanResult solvePrepared(PreparedProblem prepared, SolveOptions options, Consumer<Progress> progress) {
         // The search starts from a full plan: the current one when re-planning, else the greedy dispatch, which
         // builds a good first plan in well under a second where a construction heuristic that tries every
@@ -194,11 +198,27 @@ public final class Planner {
         SolverConfig config = solverConfig(options, extraWeightsOf(prepared.schedule()));
         SolverFactory<Schedule> factory = SolverFactory.create(config);
         long startNanos = System.nanoTime();
+        Cancellation cancellation = options.cancellation();
         Schedule solved;
         try (SolverManager<Schedule, Long> manager = SolverManager.create(factory)) {
-            SolverJob<Schedule, Long> job = manager.solveAndListen(1L, id -> prepared.schedule(),
-                    best -> progress.accept(progressOf(best, startNanos)));
-            solved = job.getFinalBestSolution();
+            if (cancellation != null && cancellation.isCancelled()) {
+                // Cancelled while the candidates were prepared: the start plan is the best there is.
+                solved = prepared.schedule();
+            } else {
+                SolverJob<Schedule, Long> job = manager.solveAndListen(1L, id -> prepared.schedule(),
+                        best -> progress.accept(progressOf(best, startNanos)));
+                // Ending the job through the solver manager stops the search between two steps and keeps its best
+                // plan; interrupting this thread instead would tear the solver down in the middle of a step.
+                Runnable stopListening = cancellation == null ? () -> { } : cancellation.onCancel(job::terminateEarly);
+                try {
+                    solved = job.getFinalBestSolution();
+                } catch (CancellationException e) {
+                    // Cancelled before the solver's thread took the job up: nothing was searched yet.
+                    solved = prepared.schedule();
+                } finally {
+                    stopListening.run();
+                }
+            }
             // Always report the final plan, also when the search found nothing better than its start.
             progress.accept(progressOf(solved, startNanos));
         } catch (InterruptedException e) {

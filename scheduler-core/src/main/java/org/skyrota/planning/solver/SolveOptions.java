@@ -14,10 +14,11 @@ import org.optaplanner.core.api.score.buildin.hardmediumsoftlong.HardMediumSoftL
  * @param randomSeed          seed of the solver's random choices, for repeatable runs
  * @param evaluationLimit     stop after this many score evaluations, or 0 for no such limit: with a fixed seed
  *                            this makes a run repeatable whatever the machine's load (tests use it)
+ * @param cancellation        a handle that ends the run early with the best plan so far, or null for none
  */
 public record SolveOptions(Duration timeLimit, Duration unimprovedTimeLimit,
                            Map<String, HardMediumSoftLongScore> weightOverrides, long randomSeed,
-                           long evaluationLimit) {
+                           long evaluationLimit, Cancellation cancellation) {
     public SolveOptions {
         if (timeLimit == null || timeLimit.isNegative() || timeLimit.isZero()) {
             throw new IllegalArgumentException("timeLimit must be positive, got " + timeLimit);
@@ -32,22 +33,27 @@ public record SolveOptions(Duration timeLimit, Duration unimprovedTimeLimit,
     }
 
     public static SolveOptions of(Duration timeLimit) {
-        return new SolveOptions(timeLimit, null, Map.of(), 0L, 0L);
+        return new SolveOptions(timeLimit, null, Map.of(), 0L, 0L, null);
     }
 
     public SolveOptions withUnimprovedTimeLimit(Duration limit) {
-        return new SolveOptions(timeLimit, limit, weightOverrides, randomSeed, evaluationLimit);
+        return new SolveOptions(timeLimit, limit, weightOverrides, randomSeed, evaluationLimit, cancellation);
     }
 
     public SolveOptions withWeights(Map<String, HardMediumSoftLongScore> overrides) {
-        return new SolveOptions(timeLimit, unimprovedTimeLimit, overrides, randomSeed, evaluationLimit);
+        return new SolveOptions(timeLimit, unimprovedTimeLimit, overrides, randomSeed, evaluationLimit, cancellation);
     }
 
     public SolveOptions withSeed(long seed) {
-        return new SolveOptions(timeLimit, unimprovedTimeLimit, weightOverrides, seed, evaluationLimit);
+        return new SolveOptions(timeLimit, unimprovedTimeLimit, weightOverrides, seed, evaluationLimit, cancellation);
     }
 
     public SolveOptions withEvaluationLimit(long limit) {
-        return new SolveOptions(timeLimit, unimprovedTimeLimit, weightOverrides, randomSeed, limit);
+        return new SolveOptions(timeLimit, unimprovedTimeLimit, weightOverrides, randomSeed, limit, cancellation);
+    }
+
+    /** These options with a handle that can end the run early (see {@link Cancellation}). */
+    public SolveOptions withCancellation(Cancellation handle) {
+        return new SolveOptions(timeLimit, unimprovedTimeLimit, weightOverrides, randomSeed, evaluationLimit, handle);
     }
 }

@@ -24,13 +24,14 @@ import org.skyrota.planning.model.Target;
 import org.skyrota.planning.solver.LeftOutVisit;
 import org.skyrota.planning.solver.PlanResult;
 import org.skyrota.planning.solver.PlannedVisit;
+import org.skyrota.sky.site.HorizonProfile;
 import org.skyrota.web.equipment.Instrument;
 import org.skyrota.web.equipment.Telescope;
 import org.skyrota.web.program.Grant;
 import org.skyrota.web.program.Program;
 import org.skyrota.web.request.ObservingRequest;
-import org.skyrota.web.site.HorizonPoint;
 import org.skyrota.web.site.Site;
+import org.skyrota.web.site.SiteMapper;
 
 /**
  * The one place where stored sites, equipment, programs and accepted requests become the planner's
@@ -161,13 +162,9 @@ public final class PlanningMapper {
     }
 
     static org.skyrota.planning.model.Site site(Site s) {
-        // The planner takes one horizon altitude per site: the median of the stored profile is a fair single number
-        // (the request's own minimum altitude usually lies above it anyway).
-        double horizon = 0;
-        if (!s.getHorizon().isEmpty()) {
-            List<Double> alts = s.getHorizon().stream().map(HorizonPoint::getAltitudeDeg).sorted().toList();
-            horizon = Math.max(-5, Math.min(60, alts.get(alts.size() / 2)));
-        }
+        // The whole stored horizon profile goes to the planner, converted where the compute endpoints convert it, so
+        // that a plan and /api/visibility agree about a wall in one direction.
+        HorizonProfile horizon = SiteMapper.toLocation(s).horizon();
         double darkSky = s.getDarkSkyZenithVMag() == null ? DEFAULT_DARK_SKY_VMAG : s.getDarkSkyZenithVMag();
         return new org.skyrota.planning.model.Site(String.valueOf(s.getId()), s.getName(), s.getLatitudeDeg(),
                 s.getLongitudeDeg(), s.getElevationM(), s.getTimeZone() == null ? null : ZoneId.of(s.getTimeZone()),

@@ -20,6 +20,8 @@ import java.util.stream.Collectors;
 import jakarta.annotation.PreDestroy;
 
 import org.optaplanner.core.api.score.buildin.hardmediumsoftlong.HardMediumSoftLongScore;
+import org.skyrota.planning.domain.RuleNames;
+import org.skyrota.planning.solver.Cancellation;
 import org.skyrota.planning.solver.PlanResult;
 import org.skyrota.planning.solver.Planner;
 import org.skyrota.planning.solver.Progress;
@@ -75,7 +77,9 @@ public class RunService {
     private final TransactionTemplate tx;
     private final ExecutorService workers;
     private final Map<Long, Future<?>> futures = new ConcurrentHashMap<>();
-    private final Set<Long> cancelling = ConcurrentHashMap.newKeySet();
+    private final Map<Long, Cancellation> cancellations = new ConcurrentHashMap<>();
+    /** Runs being cancelled, with who cancelled them (the worker ends the run and names them). */
+    private final Map<Long, String> cancelling = new ConcurrentHashMap<>();
 
     RunService(PlannerRunRepository runs, PlanRevisionRepository revisions, PlanInputs inputs, PlannerConfig planners,
                RunEvents events, AuditLog audit, JsonMapper json, PlatformTransactionManager transactions,
@@ -144,6 +148,7 @@ public class RunService {
             return saved;
         });
         long id = run.getId();
+        cancellations.put(id, new Cancellation());
         futures.put(id, workers.submit(() -> execute(id, weights)));
         return RunView.of(run);
     }
@@ -186,14 +191,22 @@ public class RunService {
         if (!run.getState().isActive()) {
             throw new ConflictException("Run " + id + " has already ended (" + run.getState().apiName() + ")");
         }
-        cancelling.add(id);
-        Future<?> future = futures.get(id);
-        if (future != null) {
-            future.cancel(true);
+        String by = "cancelled by " + CurrentUser.get().username();
+        cancelling.put(id, by);
+        // The planner stops its search at the next step and hands back its best plan; the worker then ends the run.
+        // Interrupting the worker instead would tear the solver down mid-step.
+        Cancellation cancellation = cancellations.get(id);
+        if (cancellation != null) {
+            cancellation.cancel();
         }
-        if (future == null || future.isCancelled()) {
-            // It may never have started (or its worker is gone): end it here unless the worker already did.
-            endIfActive(id, RunState.CANCELLED, null, "cancelled by " + CurrentUser.get().username());
+        Future<?> future = futures.get(id);
+        if (future == null || run.getState() == RunState.QUEUED) {
+            // It may never have started (or its worker is gone): keep it from starting and end it here, unless the
+            // worker already did.
+            if (future != null) {
+                future.cancel(false);
+            }
+            endIfActive(id, RunState.CANCELLED, null, by);
         }
         long until = System.nanoTime() + Duration.ofSeconds(10).toNanos();
         while (find(id).getState().isActive() && System.nanoTime() < until) {
@@ -250,25 +263,29 @@ public class RunService {
                 }
                 return inputs.problem(first, last, siteIds, pins, nights);
             });
-            SolveOptions options = SolveOptions.of(Duration.ofSeconds(run.getTimeLimitSeconds())).withWeights(weights);
+            SolveOptions options = SolveOptions.of(Duration.ofSeconds(run.getTimeLimitSeconds())).withWeights(weights)
+                    .withCancellation(cancellations.get(id));
             long limitNanos = Duration.ofSeconds(run.getTimeLimitSeconds()).toNanos();
             PlanResult result = planners.fresh().solve(mapped.problem(), options, p -> events.progress(id, progressData(p, limitNanos)));
-            if (cancelling.contains(id) || Thread.currentThread().isInterrupted()) {
-                endIfActive(id, RunState.CANCELLED, result.score().toString(), "cancelled");
+            if (cancelling.containsKey(id) || Thread.currentThread().isInterrupted()) {
+                // The best plan so far is not written as a draft: a cancelled run changes nothing but its own state.
+                endIfActive(id, RunState.CANCELLED, result.score().toString(),
+                        cancelling.getOrDefault(id, "cancelled"));
                 return;
             }
             tx.executeWithoutResult(status -> writeDraft(id, mapped, result, first, last, fed, feedNotes));
             events.done(id, doneData(find(id)));
         } catch (RuntimeException | Error e) {
-            boolean cancelled = cancelling.contains(id);
+            boolean cancelled = cancelling.containsKey(id);
             if (!cancelled) {
                 log.warn("Planner run {} failed", id, e);
             }
             String why = e.getMessage() == null ? e.getClass().getSimpleName() : e.getMessage();
             endIfActive(id, cancelled ? RunState.CANCELLED : RunState.FAILED, null,
-                    cancelled ? "cancelled" : "The planner failed: " + why);
+                    cancelled ? cancelling.getOrDefault(id, "cancelled") : "The planner failed: " + why);
         } finally {
             futures.remove(id);
+            cancellations.remove(id);
             cancelling.remove(id);
         }
     }

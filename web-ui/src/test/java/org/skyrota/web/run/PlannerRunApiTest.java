@@ -129,6 +129,7 @@ class PlannerRunApiTest {
         Answer cancelled = api.delete("/api/planner/runs/" + first.id("$.id"), COORD);
         assertThat(cancelled.status()).as(cancelled.body()).isEqualTo(200);
         assertThat((String) cancelled.json("$.state")).isEqualTo("cancelled");
+        assertThat((String) cancelled.json("$.message")).isEqualTo("cancelled by runcoord");
         List<Event> events = api.events("/api/planner/runs/" + first.id("$.id") + "/events", COORD, "done", Duration.ofSeconds(30));
         assertThat((String) JsonPath.read(events.get(events.size() - 1).data(), "$.state")).isEqualTo("cancelled");
         // Ended runs cannot be cancelled again; bad input is a 400 naming the field.

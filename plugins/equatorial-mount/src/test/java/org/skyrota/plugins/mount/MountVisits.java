@@ -20,7 +20,7 @@ final class MountVisits {
     static Visit visit(int telescope, int minutes, double startHourAngleDeg) {
         int id = NEXT.incrementAndGet();
         Placement p = new Placement(id, telescope, 0, 1000, 20_000);
-        Visit v = new Visit("v" + id, "r" + id, 0, "P1", 1.0, 3, 3, minutes, 0, new int[] {minutes, minutes, minutes},
+        Visit v = new Visit("v" + id, "r" + id, 0, "P1", 1.0, 1.0, 3, 3, minutes, 0, new int[] {minutes, minutes, minutes},
                 new int[] {0, 0, 0}, List.of(p), new int[1], new int[1], new int[1], new byte[1]);
         v.setHourAngles(new float[] {(float) startHourAngleDeg});
         v.setPlacement(p);
