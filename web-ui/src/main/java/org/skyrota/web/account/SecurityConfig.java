@@ -100,6 +100,13 @@ class SecurityConfig {
 
     private static void unauthorized(HttpServletRequest request, HttpServletResponse response,
                                      org.springframework.security.core.AuthenticationException e) throws IOException {
+        if (e instanceof org.springframework.security.authentication.AuthenticationServiceException) {
+            // The credentials could not be checked at all (the database failed): not the caller's fault.
+            response.setHeader("Retry-After", "1");
+            problem(request, response, 503, "Service Unavailable",
+                    "Sign-in could not be checked because the database is unavailable; try again shortly.");
+            return;
+        }
         // A script's call from the dashboard (marked X-Requested-With) gets no Basic challenge, on which a browser
         // would open its own password dialog over the page; everyone else is told how to sign in.
         if (!"XMLHttpRequest".equals(request.getHeader("X-Requested-With"))) {
