@@ -219,20 +219,26 @@ class WriteEndpointsBadInputTest {
         PasswordEncoder encoder = context.getBean(PasswordEncoder.class);
         accounts.save(new Account("someone", encoder.encode("password1"), Role.REQUESTER));
         accounts.save(new Account(SELF, encoder.encode("password1"), Role.REQUESTER));
-        visitId = publishedVisit();
-        MockHttpServletResponse token = send("POST", "/api/tokens", "ADMIN", "{\"name\":\"dome\",\"telescopeId\":" + telescopeId
+        long visitTelescope = publishedVisit();
+        MockHttpServletResponse token = send("POST", "/api/tokens", "ADMIN", "{\"name\":\"dome\",\"telescopeId\":" + visitTelescope
                 + ",\"scope\":\"reports\"}");
         assertThat(token.getStatus()).as(token.getContentAsString()).isEqualTo(201);
         reportsToken = JsonPath.read(token.getContentAsString(), "$.token");
+        // Every valid body must pass as it is, or the tries at that endpoint would only ever see refusals.
+        for (Endpoint e : endpoints()) {
+            MockHttpServletResponse r = send(e.method(), e.target(), e.role(), e.valid());
+            assertThat(e.passes()).as(e + " with its valid body: " + r.getStatus() + " " + r.getContentAsString()).contains(r.getStatus());
+            afterPass(e, r);
+        }
     }
 
     static final String SELF = "pwuser";
 
     /**
      * An accepted request (a target up on January evenings at 45° N; approximate coordinates from memory) planned by a
-     * one-second run, and the draft published: the id of one of its placed visits.
+     * one-second run, and the draft published: one of its placed visits becomes {@link #visitId}; answers its telescope.
      */
-    static String publishedVisit() throws Exception {
+    static long publishedVisit() throws Exception {
         long id = created("/api/requests", "{\"programId\":" + programId + ",\"targetName\":\"NGC 1952\",\"ra\":83.6,\"dec\":22.0,"
                 + "\"exposures\":[{\"filter\":\"V\",\"seconds\":60,\"count\":5}],\"earliestNight\":\"2027-01-10\","
                 + "\"latestNight\":\"2027-01-11\",\"priority\":2}");
@@ -249,7 +255,8 @@ class WriteEndpointsBadInputTest {
         assertThat(published.getStatus()).as(published.getContentAsString()).isEqualTo(200);
         List<String> visits = JsonPath.read(published.getContentAsString(), "$.visits[*].id");
         assertThat(visits).isNotEmpty();
-        return visits.get(0);
+        visitId = visits.get(0);
+        return ((Number) JsonPath.read(published.getContentAsString(), "$.visits[0].telescopeId")).longValue();
     }
 
     /** Waits for a planner run to end and answers its state. */
