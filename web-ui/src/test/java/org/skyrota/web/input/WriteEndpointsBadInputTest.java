@@ -21,6 +21,7 @@ import java.util.stream.Stream;
 import org.junit.jupiter.api.AfterAll;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.DynamicTest;
+import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.TestFactory;
 import org.skyrota.web.SkyrotaApplication;
 import org.skyrota.web.account.Account;
@@ -384,6 +385,21 @@ class WriteEndpointsBadInputTest {
             return new Mutation("unknown", null, hostile(random), 0);
         }
         return new Mutation("broken", null, null, random.nextInt(10_001));
+    }
+
+    /** Seen while adding planner runs to the tries: a run over an unknown site was queued (and planned nothing there). */
+    @Test
+    void aRunOverASiteThatIsNotStoredIsRefusedNamingIt() throws Exception {
+        for (String sites : List.of("[999999]", "[null]", "[#S,999999]")) {
+            Map<String, Long> before = rowCounts();
+            MockHttpServletResponse r = send("POST", "/api/planner/runs", "COORDINATOR", Endpoint.fill("{\"firstNight\":\"2027-02-01\","
+                    + "\"lastNight\":\"2027-02-02\",\"siteIds\":" + sites + ",\"seconds\":1}"));
+            assertThat(r.getStatus()).as(sites + " " + r.getContentAsString()).isEqualTo(400);
+            assertThat(r.getContentType()).startsWith("application/problem+json");
+            String expected = sites.startsWith("[#S") ? "siteIds[1]" : "siteIds[0]";
+            assertThat((String) JsonPath.read(r.getContentAsString(), "$.parameter")).isEqualTo(expected);
+            assertThat(rowCounts()).isEqualTo(before);
+        }
     }
 
     @TestFactory
