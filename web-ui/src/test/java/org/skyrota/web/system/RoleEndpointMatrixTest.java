@@ -23,6 +23,7 @@ import org.springframework.http.server.PathContainer;
 import org.springframework.security.crypto.password.PasswordEncoder;
 import org.springframework.test.context.TestPropertySource;
 import org.springframework.web.servlet.mvc.method.RequestMappingInfo;
+import org.springframework.web.servlet.mvc.method.RequestMappingInfoHandlerMapping;
 import org.springframework.web.servlet.mvc.method.annotation.RequestMappingHandlerMapping;
 import org.springframework.web.util.pattern.PathPatternParser;
 
@@ -57,6 +58,8 @@ class RoleEndpointMatrixTest {
     @Autowired AccountRepository accounts;
     @Autowired PasswordEncoder encoder;
     @Autowired @Qualifier("requestMappingHandlerMapping") RequestMappingHandlerMapping mappings;
+    /** Every mapping of request-mapping kind: the controllers' above, and the actuator endpoints' of their own. */
+    @Autowired List<RequestMappingInfoHandlerMapping> allMappings;
 
     ApiClient api;
     static PlanningNetwork network;
@@ -146,6 +149,12 @@ class RoleEndpointMatrixTest {
                 new Row("GET", "/v3/api-docs/swagger-config", "/v3/api-docs/swagger-config", null, OPEN, "browser page settings"),
                 new Row("GET", "/swagger-ui.html", "/swagger-ui.html", null, "302 302 302 302 302 403 403 401 302",
                         "redirect to the browsable page"),
+                // Actuator: health and info open, the list of endpoints for those signed in.
+                new Row("GET", "/actuator", "/actuator", null, SIGNED_IN_READ, "links to the exposed endpoints"),
+                new Row("GET", "/actuator/health", "/actuator/health", null, OPEN, ""),
+                new Row("GET", "/actuator/health/**", "/actuator/health/ping", null, "404 404 404 404 404 403 403 401 404",
+                        "components are not exposed: the actuator's own 404, an empty body, not a problem document"),
+                new Row("GET", "/actuator/info", "/actuator/info", null, OPEN, ""),
                 // The container's error forward target, mapped for every method; a client calling it directly gets 404.
                 new Row("*", "/error", "/error", null, "404 404 404 404 404 404 404 404 404",
                         "called directly: nothing to describe (was 500, not a problem document)"),
@@ -282,12 +291,17 @@ class RoleEndpointMatrixTest {
                 String who = r.method() + " " + r.path() + " as " + CALLERS.get(i);
                 if (a.status() != expected[i]) {
                     wrong.add(who + ": " + a.status() + " (expected " + expected[i] + ") " + abbreviate(a.body()));
-                } else if (expected[i] >= 400 && !a.contentType().startsWith("application/problem+json")) {
+                } else if (expected[i] >= 400 && !a.contentType().startsWith("application/problem+json") && !actuatorsOwn(r, a)) {
                     wrong.add(who + ": not a problem document but " + a.contentType());
                 }
             }
         }
         assertThat(wrong).as("calls answering otherwise than the table says").isEmpty();
+    }
+
+    /** The actuator answers its own 404 with an empty body; everything else of ours is a problem document. */
+    private static boolean actuatorsOwn(Row r, ApiClient.Answer a) {
+        return r.pattern().startsWith("/actuator/") && a.status() == 404 && a.body().isEmpty();
     }
 
     private ApiClient.Answer call(Row r, int caller) {
@@ -310,8 +324,9 @@ class RoleEndpointMatrixTest {
 
     @Test
     void theTableListsEveryMappedEndpoint() {
+        assertThat(allMappings).as("the controllers' mapping is among those read").contains(mappings);
         Set<String> mapped = new TreeSet<>();
-        for (RequestMappingInfo info : mappings.getHandlerMethods().keySet()) {
+        for (RequestMappingInfo info : allMappings.stream().flatMap(m -> m.getHandlerMethods().keySet().stream()).toList()) {
             Set<String> patterns = info.getPathPatternsCondition() != null ? info.getPathPatternsCondition().getPatternValues()
                     : info.getPatternValues();
             Set<String> methods = new TreeSet<>();
