@@ -1,6 +1,7 @@
 package org.skyrota.web.account;
 
 import java.net.URI;
+import java.nio.charset.StandardCharsets;
 import java.util.ArrayList;
 import java.util.List;
 
@@ -90,7 +91,11 @@ class AccountController {
         }
     }
 
-    /** The rule for a new password: 8 to 72 characters (bcrypt reads at most 72 bytes), not blank. */
+    /**
+     * The rule for a new password: not blank, 8 to 72 characters and at most 72 bytes in UTF-8. Spring Security's
+     * bcrypt refuses to hash more than 72 bytes (an IllegalArgumentException), so 72 characters with accents or
+     * other non-ASCII letters used to end in a 500.
+     */
     private static List<FieldProblem> newPassword(String field, String value, boolean required) {
         if (value == null) {
             return required ? List.of(new FieldProblem(field, "must not be blank")) : List.of();
@@ -98,7 +103,12 @@ class AccountController {
         if (value.isBlank()) {
             return List.of(new FieldProblem(field, "must not be blank"));
         }
-        return value.length() < 8 || value.length() > 72 ? List.of(new FieldProblem(field, "must be 8 to 72 characters long")) : List.of();
+        if (value.length() < 8 || value.length() > 72) {
+            return List.of(new FieldProblem(field, "must be 8 to 72 characters long"));
+        }
+        return value.getBytes(StandardCharsets.UTF_8).length > 72
+                ? List.of(new FieldProblem(field, "must be at most 72 bytes in UTF-8 (fewer characters when they are not ASCII)"))
+                : List.of();
     }
 
     @GetMapping("/me")

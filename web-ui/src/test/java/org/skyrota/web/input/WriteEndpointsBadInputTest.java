@@ -402,6 +402,28 @@ class WriteEndpointsBadInputTest {
         }
     }
 
+    /**
+     * Seen while writing these tries: bcrypt (Spring Security's encoder) refuses to hash more than 72 bytes, so a
+     * password of 40 accented letters (80 bytes in UTF-8, RFC 3629: two bytes each) passed the length check and ended
+     * in a 500.
+     */
+    @Test
+    void aPasswordOfMoreThan72BytesIsRefusedNamingIt() throws Exception {
+        String accented = "\u00e9".repeat(40);
+        List<String[]> calls = List.of(
+                new String[] {"POST", "/api/accounts", "ADMIN", "{\"username\":\"wide\",\"password\":\"" + accented + "\",\"role\":\"requester\"}", "password"},
+                new String[] {"PUT", "/api/accounts/someone", "ADMIN", "{\"password\":\"" + accented + "\"}", "password"},
+                new String[] {"PUT", "/api/accounts/me/password", "SELF", "{\"currentPassword\":\"password1\",\"newPassword\":\"" + accented + "\"}",
+                        "newPassword"});
+        for (String[] c : calls) {
+            Map<String, Long> before = rowCounts();
+            MockHttpServletResponse r = send(c[0], c[1], c[2], c[3]);
+            assertThat(r.getStatus()).as(c[1] + " " + r.getContentAsString()).isEqualTo(400);
+            assertThat((String) JsonPath.read(r.getContentAsString(), "$.parameter")).isEqualTo(c[4]);
+            assertThat(rowCounts()).isEqualTo(before);
+        }
+    }
+
     @TestFactory
     Stream<DynamicTest> hostileBodies() {
         Random random = new Random(SEED);
