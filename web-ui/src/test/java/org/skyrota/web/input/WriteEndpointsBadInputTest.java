@@ -364,7 +364,9 @@ class WriteEndpointsBadInputTest {
             "\"-999999999-01-01\"", "\"2027-13-45\"", "\"2027-02-30\"", "\"0000-00-00\"", "\"1800-01-01\"", "\"2200-12-31\"",
             "\"27-01-10\"", "\"<script>alert(1)</script>\"", "\"<img src=x onerror=alert(1)>\"",
             "\"'; drop table site; --\"", "\"\\\" or 1=1 --\"", "\"%s%n%x\"", "\"../../etc/passwd\"",
-            "\"Robert'); DELETE FROM account;--\"");
+            "\"Robert'); DELETE FROM account;--\"",
+            // 40 characters, 80 bytes in UTF-8: within a length limit counted in characters, past one counted in bytes.
+            "\"" + "\u00e9".repeat(40) + "\"", "\"" + "\ud83d\ude00".repeat(20) + "\"");
 
     /** Any UTF-16 code units, control characters and lone surrogates included. */
     static String randomText(Random random, int length) {
