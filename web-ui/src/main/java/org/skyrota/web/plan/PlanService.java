@@ -211,7 +211,9 @@ public class PlanService {
             throw new InvalidParametersException(List.of(new FieldProblem("night", "must be given")));
         }
         if ((telescopeId == null) == (siteId == null)) {
-            throw new InvalidParametersException(List.of(new FieldProblem("telescopeId", "give telescopeId or siteId")));
+            // Both members are at fault together (one too many, or one too few), so both are named.
+            throw new InvalidParametersException(List.of(new FieldProblem("telescopeId", "give telescopeId or siteId, not both"),
+                    new FieldProblem("siteId", "give telescopeId or siteId, not both")));
         }
         String s = state == null ? "" : state.trim().toLowerCase();
         if (!List.of("open", "locked", "closed").contains(s)) {

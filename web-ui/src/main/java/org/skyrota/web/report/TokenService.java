@@ -42,7 +42,13 @@ public class TokenService {
     }
 
     /** The token itself appears here once and is never shown again. */
-    public record NewToken(long id, String name, long telescopeId, String scope, String token, Instant createdAt) {}
+    public record NewToken(long id, String name, long telescopeId, String scope, String token, Instant createdAt) {
+        /** Spring MVC logs the bodies it writes at DEBUG; the token goes to the client only. */
+        @Override
+        public String toString() {
+            return "NewToken[id=" + id + ", name=" + name + ", telescopeId=" + telescopeId + ", scope=" + scope + ", token=(hidden)]";
+        }
+    }
 
     public NewToken create(String name, Long telescopeId, String scope) {
         if (name == null || name.isBlank() || name.length() > 100) {
@@ -78,7 +84,13 @@ public class TokenService {
         audit.record("state:revoked", "api-token", id, before, TokenView.of(t));
     }
 
-    public record FeedTokenView(String token, String url) {}
+    public record FeedTokenView(String token, String url) {
+        /** Spring MVC logs the bodies it writes at DEBUG; the token goes to the client only. */
+        @Override
+        public String toString() {
+            return "FeedTokenView[token=(hidden)]";
+        }
+    }
 
     /** A new calendar-feed token for the signed-in person; an earlier one stops working. */
     public FeedTokenView newFeedToken() {

@@ -9,6 +9,8 @@ import java.util.HashMap;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import java.util.HashSet;
+import java.util.Objects;
 import java.util.Set;
 import java.util.concurrent.ConcurrentHashMap;
 import java.util.concurrent.ExecutorService;
@@ -36,6 +38,7 @@ import org.skyrota.web.plan.PlanRevisionRepository;
 import org.skyrota.web.plan.PlanVisit;
 import org.skyrota.web.plan.PlanningMapper;
 import org.skyrota.web.plan.VisitKey;
+import org.skyrota.web.site.SiteRepository;
 import org.skyrota.web.system.AuditLog;
 import org.skyrota.web.system.ConflictException;
 import org.skyrota.web.system.FieldProblem;
@@ -69,6 +72,7 @@ public class RunService {
     private final PlannerRunRepository runs;
     private final PlanRevisionRepository revisions;
     private final PlanInputs inputs;
+    private final SiteRepository sites;
     private final PlannerConfig planners;
     private final ConditionsClosures conditions;
     private final RunEvents events;
@@ -83,9 +87,10 @@ public class RunService {
 
     RunService(PlannerRunRepository runs, PlanRevisionRepository revisions, PlanInputs inputs, PlannerConfig planners,
                RunEvents events, AuditLog audit, JsonMapper json, PlatformTransactionManager transactions,
-               ConditionsClosures conditions) {
+               ConditionsClosures conditions, SiteRepository sites) {
         this.conditions = conditions;
         this.runs = runs;
+        this.sites = sites;
         this.revisions = revisions;
         this.inputs = inputs;
         this.planners = planners;
@@ -128,6 +133,7 @@ public class RunService {
             problems.add(new FieldProblem("seconds", "must be 1.." + MAX_SECONDS));
         }
         Map<String, HardMediumSoftLongScore> weights = weights(form, problems);
+        unknownSite(form.siteIds(), problems);
         if (!problems.isEmpty()) {
             throw new InvalidParametersException(problems);
         }
@@ -151,6 +157,26 @@ public class RunService {
         cancellations.put(id, new Cancellation());
         futures.put(id, workers.submit(() -> execute(id, weights)));
         return RunView.of(run);
+    }
+
+    /**
+     * The first of {@code siteIds} that is null or names no stored site. Unchecked, such a run planned nothing for it
+     * without a word (an unknown id) or failed when it started (a null).
+     */
+    private void unknownSite(List<Long> siteIds, List<FieldProblem> problems) {
+        if (siteIds == null || siteIds.isEmpty()) {
+            return;
+        }
+        Set<Long> known = new HashSet<>();
+        List<Long> asked = siteIds.stream().filter(Objects::nonNull).distinct().toList();
+        sites.findAllById(asked).forEach(s -> known.add(s.getId()));
+        for (int i = 0; i < siteIds.size(); i++) {
+            Long id = siteIds.get(i);
+            if (id == null || !known.contains(id)) {
+                problems.add(new FieldProblem("siteIds[" + i + "]", id == null ? "must be a site id" : "no site with id " + id));
+                return;
+            }
+        }
     }
 
     private Map<String, HardMediumSoftLongScore> weights(RunForm form, List<FieldProblem> problems) {
