@@ -116,28 +116,54 @@ function drawHorizon({ points, bad }) {
   return [svg, bad.length ? el('p', { class: 'error' }, `Lines ${bad.join(', ')} are not “azimuth altitude”.`) : null];
 }
 
+const INSTRUMENT_FIELDS = [
+  ['name', 'Name', 'text'], ['readoutSeconds', 'Readout (s)', 'number'], ['filterChangeSeconds', 'Filter change (s)', 'number'],
+  ['filters', 'Filters, in wheel order', 'list'], ['certifiedSolarFilter', 'Certified solar filter fitted', 'checkbox']];
+const TELESCOPE_FIELDS = [
+  ['name', 'Name', 'text'], ['apertureMm', 'Aperture (mm)', 'number'], ['minAltitudeDeg', 'Lowest altitude (°)', 'number'],
+  ['slewRateDegPerS', 'Slew rate (°/s)', 'number'], ['settleSeconds', 'Settle time (s)', 'number'],
+  ['active', 'In use (planned)', 'checkbox'],
+  ['mountKind', 'Mount', 'select:EQUATORIAL=Equatorial,ALT_AZIMUTH=Alt-azimuth'],
+  ['needsMeridianFlip', 'Flips at the meridian (German equatorial)', 'checkbox'],
+  ['eastHourAngleLimitDeg', 'East hour-angle limit (°, −180..0, empty for none)', 'number'],
+  ['westHourAngleLimitDeg', 'West hour-angle limit (°, 0..180, empty for none)', 'number']];
+
 async function equipment(site) {
   const telescopes = await all('/api/telescopes', { siteId: site.id });
   const instruments = new Map(await Promise.all(telescopes.map(async t => [t.id, await all('/api/instruments', { telescopeId: t.id })])));
   return el('section', { class: 'card' }, el('h2', {}, `Telescopes at ${site.name}`),
     telescopes.length ? null : el('p', { class: 'muted' }, 'None yet.'),
-    telescopes.map(t => el('div', { class: 'card' },
+    telescopes.map(t => el('div', { class: 'card telescope', dataset: { telescope: t.id } },
       el('h3', {}, `${t.name}${t.active ? '' : ' (inactive)'}`),
       el('p', {}, `${t.apertureMm} mm aperture, lowest altitude ${t.minAltitudeDeg}°, slew ${t.slewRateDegPerS}°/s, settle ${t.settleSeconds} s`),
       el('p', {}, mountText(t)),
-      el('ul', {}, (instruments.get(t.id) || []).map(i => el('li', {},
+      simpleForm(`Edit ${t.name}`, '/api/telescopes', { siteId: site.id }, TELESCOPE_FIELDS, t),
+      removeButton(`Delete ${t.name}`, '/api/telescopes', t),
+      el('ul', {}, (instruments.get(t.id) || []).map(i => el('li', { class: 'instrument', dataset: { instrument: i.id } },
         `${i.name}: readout ${i.readoutSeconds} s, filter change ${i.filterChangeSeconds} s, filters ${i.filters.join(', ') || 'none'}`,
-        i.certifiedSolarFilter ? ' — certified solar filter' : ''))),
-      simpleForm(`Add an instrument to ${t.name}`, '/api/instruments', { telescopeId: t.id }, [
-        ['name', 'Name', 'text'], ['readoutSeconds', 'Readout (s)', 'number'], ['filterChangeSeconds', 'Filter change (s)', 'number'],
-        ['filters', 'Filters, in wheel order', 'list'], ['certifiedSolarFilter', 'Certified solar filter fitted', 'checkbox']]))),
-    simpleForm('Add a telescope', '/api/telescopes', { siteId: site.id, active: true }, [
-      ['name', 'Name', 'text'], ['apertureMm', 'Aperture (mm)', 'number'], ['minAltitudeDeg', 'Lowest altitude (°)', 'number'],
-      ['slewRateDegPerS', 'Slew rate (°/s)', 'number'], ['settleSeconds', 'Settle time (s)', 'number'],
-      ['mountKind', 'Mount', 'select:EQUATORIAL=Equatorial,ALT_AZIMUTH=Alt-azimuth'],
-      ['needsMeridianFlip', 'Flips at the meridian (German equatorial)', 'checkbox'],
-      ['eastHourAngleLimitDeg', 'East hour-angle limit (°, −180..0, empty for none)', 'number'],
-      ['westHourAngleLimitDeg', 'West hour-angle limit (°, 0..180, empty for none)', 'number']]));
+        i.certifiedSolarFilter ? ' — certified solar filter' : '',
+        simpleForm(`Edit ${i.name}`, '/api/instruments', { telescopeId: t.id }, INSTRUMENT_FIELDS, i),
+        removeButton(`Delete ${i.name}`, '/api/instruments', i)))),
+      simpleForm(`Add an instrument to ${t.name}`, '/api/instruments', { telescopeId: t.id }, INSTRUMENT_FIELDS))),
+    simpleForm('Add a telescope', '/api/telescopes', { siteId: site.id }, TELESCOPE_FIELDS, { active: true }));
+}
+
+/** Deletes `current` after a confirmation in the page; a stale version or a thing still in use is said plainly. */
+function removeButton(label, path, current) {
+  const sure = el('button', { type: 'button', class: 'secondary', hidden: true }, `Yes, ${label.charAt(0).toLowerCase()}${label.slice(1)}`);
+  const ask = el('button', { type: 'button', class: 'secondary', disabled: !isReviewer() }, label);
+  ask.addEventListener('click', () => { sure.hidden = false; sure.focus(); });
+  sure.addEventListener('click', async () => {
+    try {
+      await api(`${path}/${current.id}`, { method: 'DELETE', query: { version: current.version } });
+      say(`${current.name} deleted.`, 'ok');
+    } catch (e) {
+      if (!(e instanceof ApiError)) throw e;
+      say(e.status === 409 ? `${current.name} was not deleted: ${e.message}` : e.message, 'error');
+    }
+    window.dispatchEvent(new HashChangeEvent('hashchange'));
+  });
+  return el('span', { class: 'remove' }, ask, sure);
 }
 
 function mountText(t) {
@@ -147,33 +173,48 @@ function mountText(t) {
   return `Equatorial mount${t.needsMeridianFlip ? ' that flips at the meridian' : ''}${limits}`;
 }
 
-function simpleForm(title, path, fixed, fields) {
+/**
+ * A form for a new telescope or instrument, or, with `current` holding an `id`, for editing that one (sent with the
+ * version read, so a stale edit is refused rather than overwriting someone else's).
+ */
+function simpleForm(title, path, fixed, fields, current = null) {
+  const editing = current && current.id != null;
   const summary = el('p', { class: 'error', role: 'alert' });
+  const value = name => current == null || current[name] == null ? null : current[name];
+  const control = (name, kind) => {
+    if (kind.startsWith('select:')) {
+      return el('select', { name }, kind.slice(7).split(',').map(o => el('option', { value: o.split('=')[0], selected: value(name) === o.split('=')[0] }, o.split('=')[1])));
+    }
+    const v = value(name);
+    return el('input', {
+      name, type: kind === 'list' ? 'text' : kind, step: kind === 'number' ? 'any' : null,
+      placeholder: kind === 'list' ? 'B, V, R' : null, checked: kind === 'checkbox' ? Boolean(v) : null,
+      value: kind === 'checkbox' || v == null ? null : kind === 'list' ? v.join(', ') : String(v) });
+  };
   const form = el('form', { class: 'equipment-form', novalidate: true },
-    el('div', { class: 'row' }, fields.map(([name, label, kind]) => field(label, kind.startsWith('select:')
-      ? el('select', { name }, kind.slice(7).split(',').map(o => el('option', { value: o.split('=')[0] }, o.split('=')[1])))
-      : el('input', {
-        name, type: kind === 'list' ? 'text' : kind, step: kind === 'number' ? 'any' : null,
-        placeholder: kind === 'list' ? 'B, V, R' : null })))),
+    el('div', { class: 'row' }, fields.map(([name, label, kind]) => field(label, control(name, kind)))),
     fields.some(f => f[0] === 'certifiedSolarFilter')
       ? el('p', { class: 'caution' }, 'Tick the solar filter only for a certified full-aperture solar filter: solar requests go only to such instruments.') : null,
-    summary, el('button', { type: 'submit', class: 'secondary', disabled: !isReviewer() }, title));
+    summary, el('button', { type: 'submit', class: 'secondary', disabled: !isReviewer() }, editing ? 'Save' : title));
   form.addEventListener('submit', async ev => {
     ev.preventDefault();
     clearFieldErrors(form);
-    const body = { ...fixed };
+    const body = { ...fixed, ...(editing ? { version: current.version } : {}) };
     for (const [name, , kind] of fields) {
       const x = form.elements[name];
       body[name] = kind.startsWith('select:') ? x.value : kind === 'checkbox' ? x.checked : kind === 'number' ? (x.value === '' ? null : Number(x.value))
         : kind === 'list' ? x.value.split(/[\s,]+/).filter(Boolean) : x.value.trim();
     }
     try {
-      await api(path, { method: 'POST', body });
-      say(`${body.name} added.`, 'ok');
+      if (editing) await api(`${path}/${current.id}`, { method: 'PUT', body });
+      else await api(path, { method: 'POST', body });
+      say(`${body.name} ${editing ? 'saved' : 'added'}.`, 'ok');
       window.dispatchEvent(new HashChangeEvent('hashchange'));
     } catch (e) {
       if (!(e instanceof ApiError)) throw e;
-      summary.textContent = [e.message, ...showFieldErrors(form, e)].join(' ');
+      summary.textContent = e.status === 409 && editing
+        ? `Someone changed ${current.name} meanwhile; reload to see their version. ${e.message}`
+        : [e.message, ...showFieldErrors(form, e)].join(' ');
     }
   });
   return el('details', {}, el('summary', {}, title), form);
