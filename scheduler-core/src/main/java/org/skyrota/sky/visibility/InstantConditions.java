@@ -1,14 +1,22 @@
 package org.skyrota.sky.visibility;
 
+import java.time.Instant;
+import org.skyrota.plugin.MovingTarget;
 import org.skyrota.sky.atmosphere.MoonlightSkyBrightness;
 import org.skyrota.sky.coords.Horizontal;
+import org.skyrota.sky.coords.Topocentric;
 import org.skyrota.sky.events.SkyAtSite;
 import org.skyrota.sky.site.SiteLocation;
+import org.skyrota.sky.time.SiderealTime;
+import org.skyrota.sky.time.TimeScales;
 
 /**
  * Whether every constraint holds at one instant, from the positional layer's exact values at
  * that instant: the plain definition that {@link VisibilityCalculator} samples and that
- * {@link BatchVisibility} is tested against. Not thread-safe (scratch arrays).
+ * {@link BatchVisibility} is tested against. A {@link MovingTarget} is asked for its geocentric
+ * place at each instant and moved to the site by the diurnal parallax of its distance (up to
+ * about a degree for the Moon); the Moon and the Sun are compared with it as with a fixed target.
+ * Not thread-safe (scratch arrays).
  */
 final class InstantConditions {
 
@@ -22,11 +30,16 @@ final class InstantConditions {
     private final double[] target = new double[5];
     private final double[] moon = new double[4];
     private final double[] sun = new double[2];
+    private final double[] geocentric = new double[3];
+    private final double[] topocentric = new double[3];
+    private final double[] probe = new double[5];
+    private final double latRad;
 
     InstantConditions(SiteLocation site, ObservingConstraints constraints) {
         this.site = site;
         this.constraints = constraints;
         this.sky = new SkyAtSite(site);
+        this.latRad = Math.toRadians(site.latitudeDeg());
         this.minAltitudeDeg = constraints.effectiveMinAltitudeDeg();
         this.earliest = constraints.earliest().map(SkyAtSite::toEpochSecond).orElse(Double.NEGATIVE_INFINITY);
         this.latest = constraints.latest().map(SkyAtSite::toEpochSecond).orElse(Double.POSITIVE_INFINITY);
@@ -50,16 +63,60 @@ final class InstantConditions {
         return out[0];
     }
 
+    /** A moving target's apparent topocentric altitude at an instant, degrees. */
+    double altitudeDeg(MovingTarget t, double epochSecond) {
+        place(t, epochSecond, probe);
+        return probe[0];
+    }
+
+    /**
+     * A moving target's apparent (refracted) topocentric altitude and azimuth (degrees), hour
+     * angle and topocentric apparent place of date (radians), laid out as
+     * {@link SkyAtSite#target}'s.
+     */
+    void place(MovingTarget t, double epochSecond, double[] out) {
+        Instant instant = SkyAtSite.toInstant(epochSecond);
+        double jdTt = TimeScales.jdTt(instant);
+        t.apparentGeocentric(jdTt, geocentric);
+        double lst = SiderealTime.gastRad(TimeScales.jdUt1(instant), jdTt) + site.longitudeRad();
+        // A distance the target cannot give (zero, negative, NaN) is taken as a star's: no parallax.
+        double distanceKm = geocentric[2] > 0 ? geocentric[2] : Double.POSITIVE_INFINITY;
+        Topocentric.correct(geocentric[0], geocentric[1], distanceKm, lst, latRad, site.elevationM(), topocentric);
+        double ha = lst - topocentric[0];
+        out[0] = sky.refract(Math.toDegrees(Horizontal.altitudeRad(ha, topocentric[1], latRad)));
+        out[1] = Math.toDegrees(Horizontal.azimuthRad(ha, topocentric[1], latRad));
+        out[2] = ha;
+        out[3] = topocentric[0];
+        out[4] = topocentric[1];
+    }
+
     boolean holds(FixedTarget t, double epochSecond) {
+        if (!timeAndDarkness(epochSecond)) {
+            return false;
+        }
+        sky.target(t, epochSecond, target);
+        return rest(epochSecond);
+    }
+
+    boolean holds(MovingTarget t, double epochSecond) {
+        if (!timeAndDarkness(epochSecond)) {
+            return false;
+        }
+        place(t, epochSecond, target);
+        return rest(epochSecond);
+    }
+
+    private boolean timeAndDarkness(double epochSecond) {
         target[0] = Double.NaN;
         if (epochSecond < earliest || epochSecond > latest) {
             return false;
         }
         Darkness darkness = constraints.darkness();
-        if (darkness != Darkness.ANY && !(sky.sunAltitudeDeg(epochSecond) < darkness.sunAltitudeLimitDeg())) {
-            return false;
-        }
-        sky.target(t, epochSecond, target);
+        return darkness == Darkness.ANY || sky.sunAltitudeDeg(epochSecond) < darkness.sunAltitudeLimitDeg();
+    }
+
+    /** The constraints that need the target's place, already in {@code target}. */
+    private boolean rest(double epochSecond) {
         double altitude = target[0];
         if (!(altitude >= minAltitudeDeg)) {
             return false;
