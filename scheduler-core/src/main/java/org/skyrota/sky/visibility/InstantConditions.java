@@ -1,14 +1,10 @@
 package org.skyrota.sky.visibility;
 
-import java.time.Instant;
 import org.skyrota.plugin.MovingTarget;
 import org.skyrota.sky.atmosphere.MoonlightSkyBrightness;
 import org.skyrota.sky.coords.Horizontal;
-import org.skyrota.sky.coords.Topocentric;
 import org.skyrota.sky.events.SkyAtSite;
 import org.skyrota.sky.site.SiteLocation;
-import org.skyrota.sky.time.SiderealTime;
-import org.skyrota.sky.time.TimeScales;
 
 /**
  * Whether every constraint holds at one instant, from the positional layer's exact values at
@@ -30,16 +26,12 @@ final class InstantConditions {
     private final double[] target = new double[5];
     private final double[] moon = new double[4];
     private final double[] sun = new double[2];
-    private final double[] geocentric = new double[3];
-    private final double[] topocentric = new double[3];
     private final double[] probe = new double[5];
-    private final double latRad;
 
     InstantConditions(SiteLocation site, ObservingConstraints constraints) {
         this.site = site;
         this.constraints = constraints;
         this.sky = new SkyAtSite(site);
-        this.latRad = Math.toRadians(site.latitudeDeg());
         this.minAltitudeDeg = constraints.effectiveMinAltitudeDeg();
         this.earliest = constraints.earliest().map(SkyAtSite::toEpochSecond).orElse(Double.NEGATIVE_INFINITY);
         this.latest = constraints.latest().map(SkyAtSite::toEpochSecond).orElse(Double.POSITIVE_INFINITY);
@@ -69,25 +61,9 @@ final class InstantConditions {
         return probe[0];
     }
 
-    /**
-     * A moving target's apparent (refracted) topocentric altitude and azimuth (degrees), hour
-     * angle and topocentric apparent place of date (radians), laid out as
-     * {@link SkyAtSite#target}'s.
-     */
+    /** A moving target's place at an instant, as {@link SkyAtSite#target(MovingTarget, double, double[])}. */
     void place(MovingTarget t, double epochSecond, double[] out) {
-        Instant instant = SkyAtSite.toInstant(epochSecond);
-        double jdTt = TimeScales.jdTt(instant);
-        t.apparentGeocentric(jdTt, geocentric);
-        double lst = SiderealTime.gastRad(TimeScales.jdUt1(instant), jdTt) + site.longitudeRad();
-        // A distance the target cannot give (zero, negative, NaN) is taken as a star's: no parallax.
-        double distanceKm = geocentric[2] > 0 ? geocentric[2] : Double.POSITIVE_INFINITY;
-        Topocentric.correct(geocentric[0], geocentric[1], distanceKm, lst, latRad, site.elevationM(), topocentric);
-        double ha = lst - topocentric[0];
-        out[0] = sky.refract(Math.toDegrees(Horizontal.altitudeRad(ha, topocentric[1], latRad)));
-        out[1] = Math.toDegrees(Horizontal.azimuthRad(ha, topocentric[1], latRad));
-        out[2] = ha;
-        out[3] = topocentric[0];
-        out[4] = topocentric[1];
+        sky.target(t, epochSecond, out);
     }
 
     boolean holds(FixedTarget t, double epochSecond) {
