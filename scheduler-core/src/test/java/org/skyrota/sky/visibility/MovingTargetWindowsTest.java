@@ -36,8 +36,10 @@ class MovingTargetWindowsTest {
     private static final SiteLocation SITE = SiteLocation.of(45.0, 7.5, 600, ZoneId.of("Europe/Rome"));
 
     /** The engine's Moon, geocentric: what a target-kind plugin hands over. */
+    /** Scratch per thread, as the plugin rules ask of a MovingTarget. */
+    private static final ThreadLocal<double[]> SCRATCH = ThreadLocal.withInitial(() -> new double[5]);
+
     private static final MovingTarget MOON = new MovingTarget() {
-        private final double[] s = new double[5];
 
         @Override
         public String label() {
@@ -46,6 +48,7 @@ class MovingTargetWindowsTest {
 
         @Override
         public void apparentGeocentric(double jdTt, double[] out) {
+            double[] s = SCRATCH.get();
             Moon.apparent(jdTt, s);
             System.arraycopy(s, 0, out, 0, 3);
         }
@@ -66,7 +69,6 @@ class MovingTargetWindowsTest {
     };
 
     private static final MovingTarget SUN = new MovingTarget() {
-        private final double[] s = new double[5];
 
         @Override
         public String label() {
@@ -75,6 +77,7 @@ class MovingTargetWindowsTest {
 
         @Override
         public void apparentGeocentric(double jdTt, double[] out) {
+            double[] s = SCRATCH.get();
             Sun.apparent(jdTt, s);
             System.arraycopy(s, 0, out, 0, 3);
         }
