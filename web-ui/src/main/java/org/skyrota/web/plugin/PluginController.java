@@ -24,7 +24,10 @@ class PluginController {
 
     record ProblemView(String source, String plugin, String problem) {}
 
-    record PluginsView(List<PluginView> plugins, List<ProblemView> problems) {}
+    /** A target kind a request may name, with its parameters and a line of help on each. */
+    record TargetKindView(String kind, String plugin, String description, Map<String, String> parameters) {}
+
+    record PluginsView(List<PluginView> plugins, List<ProblemView> problems, List<TargetKindView> targetKinds) {}
 
     @GetMapping("/api/plugins")
     PluginsView plugins() {
@@ -44,7 +47,11 @@ class PluginController {
         }
         List<ProblemView> problems = registry.problems().stream()
                 .map(r -> new ProblemView(r.source(), r.pluginId(), r.problem())).toList();
-        return new PluginsView(List.copyOf(byId.values()), problems);
+        List<TargetKindView> kinds = registry.targetKinds().stream()
+                .map(k -> new TargetKindView(k.kind(), k.descriptor().id(), k.description(),
+                        new java.util.TreeMap<>(k.parameterHelp())))
+                .toList();
+        return new PluginsView(List.copyOf(byId.values()), problems, kinds);
     }
 
     /** "PlanExporter" becomes "plan-exporter". */
