@@ -33,6 +33,7 @@ export async function render(main) {
   function showKind() {
     const k = chosenKind();
     coordinates.hidden = k !== null;
+    coordinates.style.display = k !== null ? 'none' : ''; // the grid's display would override hidden
     clear(parameters, k === null ? null : Object.entries(k.parameters).map(([name, help]) =>
       field(name, input(`targetParameters.${name}`, { autocomplete: 'off' }), help)));
   }
