@@ -22,6 +22,7 @@ import org.skyrota.planning.model.PlanningProblem;
 import org.skyrota.planning.model.Program;
 import org.skyrota.planning.model.Request;
 import org.skyrota.planning.model.Site;
+import org.skyrota.planning.model.SolarSafety;
 import org.skyrota.planning.model.Target;
 import org.skyrota.planning.model.Telescope;
 import org.skyrota.planning.sky.EngineSkyModel;
@@ -82,6 +83,58 @@ class MovingTargetPlanningTest {
         for (Instant t = placed.start(); !t.isAfter(placed.end()); t = t.plusSeconds(60)) {
             assertThat(jupiterAltitudeDeg(jupiter.moving(), t)).as("Jupiter's altitude at %s", t).isGreaterThan(29.9);
             assertThat(sky.sunAltitudeDeg(SkyAtSite.toEpochSecond(t))).as("the Sun at %s", t).isLessThan(-18);
+        }
+    }
+
+    /**
+     * A moving target that says it is solar (here the sky engine's Sun handed over as one) is planned like the Sun:
+     * by day, only on an instrument with a certified solar filter, with the solar caution on the visit; with no such
+     * instrument it is left out saying why, caution included.
+     */
+    @Test
+    void aSolarMovingTargetGoesOnlyToACertifiedSolarFilter() {
+        MovingTarget sun = new MovingTarget() {
+            private final ThreadLocal<double[]> scratch = ThreadLocal.withInitial(() -> new double[5]);
+
+            @Override
+            public String label() {
+                return "Sun";
+            }
+
+            @Override
+            public void apparentGeocentric(double jdTt, double[] out) {
+                double[] s = scratch.get();
+                org.skyrota.sky.bodies.Sun.apparent(jdTt, s);
+                System.arraycopy(s, 0, out, 0, 3);
+            }
+
+            @Override
+            public boolean isSolar() {
+                return true;
+            }
+        };
+        Target solar = Target.moving("Sun (moving)", sun);
+        assertThat(solar.solar()).isTrue();
+        LocalDate day = LocalDate.of(2027, 6, 20);
+        Request request = new Request("sun", "club", "member", solar, List.of(new ExposureStep("V", 60, 5)),
+                ObservingLimits.dark(20), day, day, 1, null, null, 3);
+        for (boolean certified : new boolean[] {false, true}) {
+            PlanningProblem problem = new PlanningProblem(List.of(SITE), List.of(SCOPE),
+                    List.of(new Instrument("cam", "mid-40", Set.of("V"), 5, 5, certified)),
+                    List.of(new Program("club", "Club (invented)", 10, 1)), List.of(request), List.of(), List.of(),
+                    List.of(), day, day, 5, 5);
+            PlanResult result = new Planner(new EngineSkyModel(), SkyrotaConstraints.class)
+                    .solve(problem, SolveOptions.of(Duration.ofSeconds(1)));
+            if (!certified) {
+                assertThat(result.planned()).isEmpty();
+                assertThat(result.leftOut()).singleElement().satisfies(l ->
+                        assertThat(l.reason()).contains("certified solar filter").contains(SolarSafety.CAUTION));
+            } else {
+                PlannedVisit placed = result.planned().stream().findFirst().orElseThrow();
+                assertThat(placed.caution()).isEqualTo(SolarSafety.CAUTION);
+                SkyAtSite sky = new SkyAtSite(SiteLocation.of(45.0, 0.0, 0));
+                assertThat(sky.sunAltitudeDeg(SkyAtSite.toEpochSecond(placed.start()))).isGreaterThan(19);
+            }
         }
     }
 
