@@ -114,6 +114,15 @@ class MovingTargetApiTest {
                 assertThat(altitudeDeg(jupiter, t, 45, 7)).as("Jupiter's altitude at %s", t).isGreaterThan(29.9);
             }
         });
+        assertThat((String) visits.get(0).get("targetKind")).isEqualTo("planet");
+
+        // Published and exported, a moving target has no fixed position: its RA and Dec columns are empty.
+        Answer published = api.post("/api/plans/draft/publish?revision=" + draft.id("$.revision"), COORD, null);
+        assertThat(published.status()).as(published.body()).isIn(200, 201);
+        Answer csv = api.get("/api/plans/published.csv", COORD);
+        assertThat(csv.status()).as(csv.body()).isEqualTo(200);
+        String row = csv.body().lines().filter(l -> l.startsWith((id * 1000 + 1) + ",")).findFirst().orElseThrow();
+        assertThat(row).contains(",Jupiter (PMT),Jupiter,,,");
     }
 
     @Test
