@@ -167,6 +167,13 @@ class MovingTargetApiTest {
         assertThat(unknownKind.status()).isEqualTo(400);
         assertThat((String) unknownKind.json("$.parameter")).isEqualTo("targetKind");
 
+        // The small-bodies plugin's orbit kind names its own parameter too: an eccentricity cannot be negative.
+        Answer badOrbit = api.post("/api/requests", COORD, body("Comet (invented)", "\"targetKind\":\"orbit\","
+                + "\"targetParameters\":{\"q\":\"1.0\",\"e\":\"-0.5\",\"i\":\"10\",\"node\":\"0\","
+                + "\"arg_perihelion\":\"0\",\"perihelion_time\":\"2027-01-01T00:00:00\"}"));
+        assertThat(badOrbit.status()).as(badOrbit.body()).isEqualTo(400);
+        assertThat((String) badOrbit.json("$.parameter")).isEqualTo("targetParameters.e");
+
         // A fixed target still needs its coordinates, and takes no parameters.
         Answer noRa = api.post("/api/requests", COORD, body("NGC 1952", "\"dec\":22"));
         assertThat(noRa.status()).isEqualTo(400);
