@@ -26,13 +26,13 @@ import org.skyrota.planning.solver.PlanResult;
 import org.skyrota.planning.solver.PlannedVisit;
 import org.skyrota.web.equipment.Instrument;
 import org.skyrota.web.equipment.Telescope;
+import org.skyrota.web.plugin.TargetKinds;
 import org.skyrota.web.program.Grant;
 import org.skyrota.web.program.Program;
-import org.skyrota.web.plugin.TargetKinds;
 import org.skyrota.web.request.ObservingRequest;
-import org.skyrota.web.system.InvalidParametersException;
 import org.skyrota.web.site.HorizonPoint;
 import org.skyrota.web.site.Site;
+import org.skyrota.web.system.InvalidParametersException;
 
 /**
  * The one place where stored sites, equipment, programs and accepted requests become the planner's
@@ -43,6 +43,8 @@ import org.skyrota.web.site.Site;
  * between the planner's visit ids and the stable {@link VisitKey}s.
  */
 public final class PlanningMapper {
+
+    private static final org.slf4j.Logger LOG = org.slf4j.LoggerFactory.getLogger(PlanningMapper.class);
 
     private PlanningMapper() {}
 
@@ -234,12 +236,6 @@ public final class PlanningMapper {
                     r.getTargetKind(), e.getMessage());
             return null;
         }
-    }
-
-    private static final org.slf4j.Logger LOG = org.slf4j.LoggerFactory.getLogger(PlanningMapper.class);
-
-    static Request request(ObservingRequest r, int openRepeats, LocalDate first, LocalDate last) {
-        return request(r, Target.fixed(r.getTargetName(), r.getRaDeg(), r.getDecDeg()), openRepeats, first, last);
     }
 
     static Request request(ObservingRequest r, Target target, int openRepeats, LocalDate first, LocalDate last) {
