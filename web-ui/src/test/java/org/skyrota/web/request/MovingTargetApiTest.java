@@ -184,6 +184,22 @@ class MovingTargetApiTest {
         assertThat((String) fixedWithParameters.json("$.parameter")).isEqualTo("targetParameters");
     }
 
+    /** The CSV plugin's target_kind and target_parameters columns reach the server's check too. */
+    @Test
+    void anImportedPlanetIsStoredAndABadBodyRefusesTheFile() {
+        String good = "title,target,target_kind,target_parameters,filter_plan,priority,program\n"
+                + "Ringed planet,Saturn,planet,body=saturn,V:30x5,3,PMT\n";
+        Answer ok = api.send("POST", "/api/requests/import", COORD, good, "text/csv");
+        assertThat(ok.status()).as(ok.body()).isEqualTo(201);
+        assertThat(ok.<List<String>>json("$.requests[*].targetKind")).containsExactly("planet");
+        assertThat(ok.<List<String>>json("$.requests[*].targetParameters.body")).containsExactly("saturn");
+        String bad = "title,target,target_kind,target_parameters,filter_plan,priority,program\n"
+                + "Nowhere,Vulcan,planet,body=vulcan,V:30x5,3,PMT\n";
+        Answer refused = api.send("POST", "/api/requests/import", COORD, bad, "text/csv");
+        assertThat(refused.status()).as(refused.body()).isEqualTo(400);
+        assertThat((String) refused.json("$.parameter")).isEqualTo("record 1: targetParameters.body");
+    }
+
     static MovingTarget jupiter() throws Exception {
         for (TargetKind kind : ServiceLoader.load(TargetKind.class)) {
             if (kind.kind().equals("planet")) {
