@@ -202,7 +202,8 @@ function drawVisitChart(box, v, site, clock) {
   const xs = [], target = [], moon = [];
   for (let t = mid - 6 * 3600e3; t <= mid + 6 * 3600e3; t += 10 * 60e3) {
     xs.push(t / 1000);
-    target.push(altitudeDeg(v.raDeg, v.decDeg, site.latitudeDeg, site.longitudeDeg, t));
+    // The sketch knows only fixed positions; a moving target's curve is left out rather than drawn wrong.
+    target.push(v.targetKind && v.targetKind !== 'fixed' ? null : altitudeDeg(v.raDeg, v.decDeg, site.latitudeDeg, site.longitudeDeg, t));
     moon.push(moonAltitudeDeg(site.latitudeDeg, site.longitudeDeg, t));
   }
   const fmt = (u, x) => x == null ? '—' : x.toFixed(1) + '°';

@@ -97,8 +97,12 @@ async function nextObservable(r, site) {
   let to = addDays(from, LOOKAHEAD_NIGHTS - 1);
   if (r.latestNight && r.latestNight < to) to = r.latestNight;
   if (to < from) return null;
+  // A moving target (a plugin's kind) is asked for by its kind and parameters, a fixed one by its position.
+  const target = r.targetKind && r.targetKind !== 'fixed'
+    ? { targetKind: r.targetKind, ...Object.fromEntries(Object.entries(r.targetParameters || {}).map(([n, v]) => [`targetParameters.${n}`, v])) }
+    : { ra: r.raDeg, dec: r.decDeg };
   const answer = await api('/api/visibility', { query: {
-    ra: r.raDeg, dec: r.decDeg, lat: site.latitudeDeg, lon: site.longitudeDeg, elevation: site.elevationM, tz: site.timeZone,
+    ...target, lat: site.latitudeDeg, lon: site.longitudeDeg, elevation: site.elevationM, tz: site.timeZone,
     from, to, minAltitude: r.minAltitudeDeg, darkness: r.darkness, minMoonSeparation: r.minMoonSeparationDeg,
     maxMoonIllumination: r.maxMoonIllumination,
   } });

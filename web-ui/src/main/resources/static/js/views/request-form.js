@@ -1,6 +1,7 @@
 // The new-request form: target, exposure plan, constraints, window, repeats and their spacing, priority, program;
 // a live preview of the nights and hours observable at each site; field errors beside fields;
-// the Sun caution for solar targets.
+// the Sun caution for solar targets. The target is a fixed position or one of the server's target kinds
+// (GET /api/plugins, targetKinds: a planet, a comet), whose parameters are asked for with their help.
 import {
   addDays, all, api, ApiError, clear, clearFieldErrors, el, field, hours, priorityLabel, say, session, showFieldErrors, siteClock, siteToday, timeEl,
 } from '../api.js';
@@ -9,7 +10,9 @@ import { separationDeg, sunPosition } from '../sky-sketch.js';
 const PREVIEW_NIGHTS = 30;
 
 export async function render(main) {
-  const [programs, sites] = await Promise.all([all('/api/programs', { sort: 'code', active: true }), all('/api/sites', { sort: 'name' })]);
+  const [programs, sites, plugins] = await Promise.all([all('/api/programs', { sort: 'code', active: true }), all('/api/sites', { sort: 'name' }),
+    api('/api/plugins').catch(() => ({ targetKinds: [] }))]);
+  const kinds = plugins.targetKinds || [];
   const input = (name, attrs = {}) => el('input', { name, ...attrs });
   const program = el('select', { name: 'programId', required: true },
     el('option', { value: '' }, 'choose…'), programs.map(p => el('option', { value: p.id }, `${p.code} — ${p.title}`)));
@@ -19,6 +22,22 @@ export async function render(main) {
   const owner = input('owner', { value: session.user ? session.user.username : '', readonly: session.user ? true : null });
   const exposures = el('div', { id: 'exposures' });
   const caution = el('div', { id: 'sun-caution', 'aria-live': 'polite' });
+  const kind = el('select', { name: 'targetKind' }, el('option', { value: 'fixed' }, 'fixed position (RA and Dec)'),
+    kinds.map(k => el('option', { value: k.kind }, `${k.kind} — ${k.description}`)));
+  const coordinates = el('div', { class: 'grid2', id: 'target-coordinates' },
+    field('Right ascension', input('ra', { required: true, placeholder: '05:35:17.3 or 83.82' }), 'hours as h:m:s (05:35:17.3, 5h35m17.3s) or decimal degrees'),
+    field('Declination', input('dec', { required: true, placeholder: '-05:23:28 or -5.391' }), 'degrees as d:m:s (-05:23:28, -5d23m28s) or decimal degrees'));
+  const parameters = el('div', { class: 'grid2', id: 'target-parameters' });
+  const chosenKind = () => kinds.find(k => k.kind === kind.value) || null;
+  // A moving target's position comes from its kind's parameters; the coordinates give way to them.
+  function showKind() {
+    const k = chosenKind();
+    coordinates.hidden = k !== null;
+    coordinates.style.display = k !== null ? 'none' : ''; // the grid's display would override hidden
+    clear(parameters, k === null ? null : Object.entries(k.parameters).map(([name, help]) =>
+      field(name, input(`targetParameters.${name}`, { autocomplete: 'off' }), help)));
+  }
+  kind.addEventListener('change', () => { showKind(); schedulePreview(); });
   const preview = el('div', { id: 'preview', 'aria-live': 'polite' });
   const summary = el('p', { class: 'error', role: 'alert', id: 'form-summary' });
 
@@ -26,9 +45,8 @@ export async function render(main) {
     el('section', { class: 'card' }, el('h2', {}, 'Target'),
       el('div', { class: 'grid2' },
         field('Target name', input('targetName', { required: true, maxlength: 100, autocomplete: 'off' })),
-        field('Right ascension', input('ra', { required: true, placeholder: '05:35:17.3 or 83.82' }), 'hours as h:m:s (05:35:17.3, 5h35m17.3s) or decimal degrees'),
-        field('Declination', input('dec', { required: true, placeholder: '-05:23:28 or -5.391' }), 'degrees as d:m:s (-05:23:28, -5d23m28s) or decimal degrees')),
-      caution),
+        field('Kind of target', kind, kinds.length ? 'a fixed position, or one the server computes (from its plugins)' : 'this server computes no moving targets')),
+      coordinates, parameters, caution),
     el('section', { class: 'card' }, el('h2', {}, 'Exposure plan'), exposures,
       el('button', { type: 'button', class: 'secondary', onclick: () => addExposure() }, 'Add an exposure line')),
     el('section', { class: 'card' }, el('h2', {}, 'Constraints and window'),
@@ -71,7 +89,10 @@ export async function render(main) {
     programId: program.value ? Number(program.value) : null,
     owner: value('owner'),
     targetName: value('targetName'),
-    ra: value('ra'), dec: value('dec'),
+    ra: chosenKind() ? null : value('ra'), dec: chosenKind() ? null : value('dec'),
+    targetKind: kind.value,
+    targetParameters: chosenKind() ? Object.fromEntries(Object.keys(chosenKind().parameters)
+      .map(name => [name, value(`targetParameters.${name}`)]).filter(([, v]) => v !== '')) : null,
     exposures: [...exposures.querySelectorAll('.exposure')].map(line => {
       const i = line.dataset.index;
       return { filter: value(`exposures[${i}].filter`), seconds: number(`exposures[${i}].seconds`), count: number(`exposures[${i}].count`) };
@@ -92,9 +113,15 @@ export async function render(main) {
   async function updatePreview() {
     const mine = ++generation;
     const b = body();
-    const ra = parseRa(b.ra), dec = parseDec(b.dec);
-    showSunCaution(caution, b.targetName, ra, dec);
-    if (ra === null || dec === null) { clear(preview, el('p', { class: 'muted' }, 'Enter the coordinates to see when the target is observable.')); return; }
+    const moving = chosenKind() !== null;
+    const ra = moving ? null : parseRa(b.ra), dec = moving ? null : parseDec(b.dec);
+    showSunCaution(caution, [b.targetName, ...Object.values(b.targetParameters || {})].join(' '), ra, dec);
+    if (moving && Object.keys(b.targetParameters).length === 0) {
+      clear(preview, el('p', { class: 'muted' }, 'Enter the target’s parameters to see when it is observable.')); return;
+    }
+    if (!moving && (ra === null || dec === null)) { clear(preview, el('p', { class: 'muted' }, 'Enter the coordinates to see when the target is observable.')); return; }
+    const target = moving ? { targetKind: b.targetKind,
+      ...Object.fromEntries(Object.entries(b.targetParameters).map(([n, v]) => [`targetParameters.${n}`, v])) } : { ra, dec };
     if (!sites.length) { clear(preview, el('p', { class: 'muted' }, 'No sites yet.')); return; }
     const results = await Promise.all(sites.map(async site => {
       const clock = siteClock(site);
@@ -102,7 +129,7 @@ export async function render(main) {
       const to = b.latestNight || addDays(from, PREVIEW_NIGHTS - 1);
       try {
         const v = await api('/api/visibility', { query: {
-          ra, dec, lat: site.latitudeDeg, lon: site.longitudeDeg, elevation: site.elevationM, tz: site.timeZone, from, to,
+          ...target, lat: site.latitudeDeg, lon: site.longitudeDeg, elevation: site.elevationM, tz: site.timeZone, from, to,
           minAltitude: b.minAltitudeDeg, darkness: b.darkness, minMoonSeparation: b.minMoonSeparationDeg, maxMoonIllumination: b.maxMoonIllumination,
         } });
         return { site, clock, from, to, windows: v.windows };

@@ -64,7 +64,9 @@ async function showNight(body, site, date) {
   const xs = [], moon = [];
   for (let t = t0; t <= t1; t += step) { xs.push(t / 1000); moon.push(moonAltitudeDeg(site.latitudeDeg, site.longitudeDeg, t)); }
   const targets = uniqueTargets(visits);
-  const curves = targets.map(v => xs.map(x => altitudeDeg(v.raDeg, v.decDeg, site.latitudeDeg, site.longitudeDeg, x * 1000)));
+  // The sketch knows only fixed positions; a moving target's curve is left empty rather than drawn wrong.
+  const curves = targets.map(v => xs.map(x => v.targetKind && v.targetKind !== 'fixed' ? null
+    : altitudeDeg(v.raDeg, v.decDeg, site.latitudeDeg, site.longitudeDeg, x * 1000)));
 
   const chartBox = el('div', { class: 'chart', id: 'night-chart', role: 'img',
     'aria-label': 'Altitude chart of the night; the table below it gives the same numbers.' });

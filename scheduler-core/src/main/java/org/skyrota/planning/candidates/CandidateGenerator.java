@@ -152,7 +152,8 @@ public final class CandidateGenerator {
     private Map<String, List<List<SkyWindow>>> prefetch(PlanningProblem problem) {
         Map<ObservingLimits, List<Request>> byLimits = new LinkedHashMap<>();
         for (Request r : problem.requests()) {
-            if (!r.target().solar()) {
+            // Moving targets have no batch path; they are asked night by night over their own nights only.
+            if (!r.target().solar() && !r.target().isMoving()) {
                 byLimits.computeIfAbsent(r.limits(), k -> new ArrayList<>()).add(r);
             }
         }

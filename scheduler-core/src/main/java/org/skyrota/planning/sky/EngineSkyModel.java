@@ -22,6 +22,7 @@ import org.skyrota.sky.visibility.BatchVisibility;
 import org.skyrota.sky.visibility.Darkness;
 import org.skyrota.sky.visibility.FixedTarget;
 import org.skyrota.sky.visibility.ObservingConstraints;
+import org.skyrota.sky.visibility.VisibilityCalculator;
 import org.skyrota.sky.visibility.VisibilityWindow;
 
 /**
@@ -31,6 +32,7 @@ import org.skyrota.sky.visibility.VisibilityWindow;
  * Solar targets get daytime windows: the Sun's centre above the visit's minimum altitude, sampled each minute.
  * The site's horizon profile takes part in every window: the engine raises the minimum altitude towards the
  * azimuths the profile covers, for fixed targets and the Sun alike.
+ * Moving targets (planets, the Moon, comets) get their windows from the per-instant path, topocentric.
  */
 public final class EngineSkyModel implements SkyModel {
     private final Map<String, SiteLocation> locations = new ConcurrentHashMap<>();
@@ -39,6 +41,9 @@ public final class EngineSkyModel implements SkyModel {
 
     @Override
     public List<SkyWindow> windows(Site site, Target target, ObservingLimits limits, LocalDate night) {
+        if (target.isMoving()) {
+            return movingWindows(site, target, limits, night, night);
+        }
         if (target.solar()) {
             return solarWindows(site, limits, night);
         }
@@ -51,13 +56,17 @@ public final class EngineSkyModel implements SkyModel {
     public List<List<List<SkyWindow>>> windows(List<Site> sites, List<Target> targets, ObservingLimits limits,
                                                LocalDate from, LocalDate to) {
         List<SiteLocation> siteLocations = sites.stream().map(this::location).toList();
-        List<FixedTarget> fixed = targets.stream().map(EngineSkyModel::fixed).toList();
+        List<Target> fixedTargets = targets.stream().filter(t -> !t.isMoving()).toList();
+        List<FixedTarget> fixed = fixedTargets.stream().map(EngineSkyModel::fixed).toList();
         BatchVisibility.Result result = BatchVisibility.compute(siteLocations, fixed, constraints(limits), from, to);
         List<List<List<SkyWindow>>> out = new ArrayList<>();
         for (int s = 0; s < sites.size(); s++) {
             List<List<SkyWindow>> bySite = new ArrayList<>();
-            for (int t = 0; t < targets.size(); t++) {
-                bySite.add(result.windows(s, t).stream().map(EngineSkyModel::window).toList());
+            // Moving targets have no batch path: each takes the per-instant path on its own.
+            int f = 0;
+            for (Target target : targets) {
+                bySite.add(target.isMoving() ? movingWindows(sites.get(s), target, limits, from, to)
+                        : result.windows(s, f++).stream().map(EngineSkyModel::window).toList());
             }
             out.add(bySite);
         }
@@ -75,12 +84,17 @@ public final class EngineSkyModel implements SkyModel {
                     0, 0);
         }
         double[] p = new double[5];
-        sky.target(fixed(target), t, p);
+        if (target.isMoving()) {
+            sky.target(target.moving(), t, p);
+        } else {
+            sky.target(fixed(target), t, p);
+        }
         double altitude = p[0];
         double airmass = altitude > 0 ? Airmass.kastenYoung(altitude) : Double.POSITIVE_INFINITY;
         double moonSepDeg = Math.toDegrees(Horizontal.separationRad(p[3], p[4], sm[0], sm[1]));
         double sunSepDeg = Math.toDegrees(Horizontal.separationRad(p[3], p[4], sm[4], sm[5]));
-        double brightness = MoonlightSkyBrightness.skyBrightnessVMagPerArcsec2(location(site).darkSkyZenithVMag(),
+        // A solar moving target is observed by day, like the Sun: the moonlight model does not apply.
+        double brightness = target.solar() ? 0 : MoonlightSkyBrightness.skyBrightnessVMagPerArcsec2(location(site).darkSkyZenithVMag(),
                 sm[3], 90 - sm[2], 90 - Math.max(0, altitude), moonSepDeg,
                 location(site).extinctionMagPerAirmass());
         return new SkyConditions(altitude, airmass, brightness, sunSepDeg);
@@ -96,6 +110,19 @@ public final class EngineSkyModel implements SkyModel {
             sky.sunRaDec(t, sun);
             return new double[] {moon[0], moon[1], moon[2], sky.moonPhaseAngleDeg(t), sun[0], sun[1]};
         });
+    }
+
+    /**
+     * A moving target's windows by the engine's per-instant path. A solar one (caution: certified solar filter only)
+     * is observed by day like the Sun, so only its altitude limits it.
+     */
+    private List<SkyWindow> movingWindows(Site site, Target target, ObservingLimits limits, LocalDate from,
+                                          LocalDate to) {
+        ObservingConstraints c = target.solar()
+                ? ObservingConstraints.of(Math.max(-1, Math.min(89, limits.minAltitudeDeg())), Darkness.ANY)
+                : constraints(limits);
+        return VisibilityCalculator.windows(location(site), target.moving(), c, from, to).stream()
+                .map(EngineSkyModel::window).toList();
     }
 
     private List<SkyWindow> solarWindows(Site site, ObservingLimits limits, LocalDate date) {

@@ -1,6 +1,7 @@
 package org.skyrota.sky.events;
 
 import java.time.Instant;
+import org.skyrota.plugin.MovingTarget;
 import org.skyrota.sky.atmosphere.Refraction;
 import org.skyrota.sky.bodies.Moon;
 import org.skyrota.sky.bodies.Sun;
@@ -34,6 +35,7 @@ public final class SkyAtSite {
     private final double[] moon = new double[5];
     private final double[] topo = new double[3];
     private final double[] place = new double[2];
+    private final double[] geocentric = new double[3];
 
     public SkyAtSite(SiteLocation site) {
         this.site = site;
@@ -155,5 +157,29 @@ public final class SkyAtSite {
         out[2] = ha;
         out[3] = place[0];
         out[4] = place[1];
+    }
+
+    /**
+     * A moving target's apparent (refracted) topocentric altitude and azimuth (degrees), hour
+     * angle (radians) and topocentric apparent place of date (radians), laid out as
+     * {@link #target(FixedTarget, double, double[])}'s: the target's geocentric place at the
+     * instant, moved to the site by the parallax of its distance (a distance that is not
+     * positive is taken as a star's, without parallax).
+     *
+     * @param out altitudeDeg, azimuthDeg, haRad, raRad, decRad
+     */
+    public void target(MovingTarget target, double epochSecond, double[] out) {
+        Instant t = toInstant(epochSecond);
+        double jdTt = TimeScales.jdTt(t);
+        target.apparentGeocentric(jdTt, geocentric);
+        double lst = SiderealTime.gastRad(TimeScales.jdUt1(t), jdTt) + lonRad;
+        double distanceKm = geocentric[2] > 0 ? geocentric[2] : Double.POSITIVE_INFINITY;
+        Topocentric.correct(geocentric[0], geocentric[1], distanceKm, lst, latRad, site.elevationM(), topo);
+        double ha = lst - topo[0];
+        out[0] = refract(Math.toDegrees(Horizontal.altitudeRad(ha, topo[1], latRad)));
+        out[1] = Math.toDegrees(Horizontal.azimuthRad(ha, topo[1], latRad));
+        out[2] = ha;
+        out[3] = topo[0];
+        out[4] = topo[1];
     }
 }

@@ -1,5 +1,6 @@
 package org.skyrota.sky.visibility;
 
+import org.skyrota.plugin.MovingTarget;
 import org.skyrota.sky.atmosphere.MoonlightSkyBrightness;
 import org.skyrota.sky.coords.Horizontal;
 import org.skyrota.sky.events.SkyAtSite;
@@ -8,7 +9,10 @@ import org.skyrota.sky.site.SiteLocation;
 /**
  * Whether every constraint holds at one instant, from the positional layer's exact values at
  * that instant: the plain definition that {@link VisibilityCalculator} samples and that
- * {@link BatchVisibility} is tested against. Not thread-safe (scratch arrays).
+ * {@link BatchVisibility} is tested against. A {@link MovingTarget} is asked for its geocentric
+ * place at each instant and moved to the site by the diurnal parallax of its distance (up to
+ * about a degree for the Moon); the Moon and the Sun are compared with it as with a fixed target.
+ * Not thread-safe (scratch arrays).
  */
 final class InstantConditions {
 
@@ -22,6 +26,7 @@ final class InstantConditions {
     private final double[] target = new double[5];
     private final double[] moon = new double[4];
     private final double[] sun = new double[2];
+    private final double[] probe = new double[5];
 
     InstantConditions(SiteLocation site, ObservingConstraints constraints) {
         this.site = site;
@@ -50,16 +55,44 @@ final class InstantConditions {
         return out[0];
     }
 
+    /** A moving target's apparent topocentric altitude at an instant, degrees. */
+    double altitudeDeg(MovingTarget t, double epochSecond) {
+        place(t, epochSecond, probe);
+        return probe[0];
+    }
+
+    /** A moving target's place at an instant, as {@link SkyAtSite#target(MovingTarget, double, double[])}. */
+    void place(MovingTarget t, double epochSecond, double[] out) {
+        sky.target(t, epochSecond, out);
+    }
+
     boolean holds(FixedTarget t, double epochSecond) {
+        if (!timeAndDarkness(epochSecond)) {
+            return false;
+        }
+        sky.target(t, epochSecond, target);
+        return rest(epochSecond);
+    }
+
+    boolean holds(MovingTarget t, double epochSecond) {
+        if (!timeAndDarkness(epochSecond)) {
+            return false;
+        }
+        place(t, epochSecond, target);
+        return rest(epochSecond);
+    }
+
+    private boolean timeAndDarkness(double epochSecond) {
         target[0] = Double.NaN;
         if (epochSecond < earliest || epochSecond > latest) {
             return false;
         }
         Darkness darkness = constraints.darkness();
-        if (darkness != Darkness.ANY && !(sky.sunAltitudeDeg(epochSecond) < darkness.sunAltitudeLimitDeg())) {
-            return false;
-        }
-        sky.target(t, epochSecond, target);
+        return darkness == Darkness.ANY || sky.sunAltitudeDeg(epochSecond) < darkness.sunAltitudeLimitDeg();
+    }
+
+    /** The constraints that need the target's place, already in {@code target}. */
+    private boolean rest(double epochSecond) {
         double altitude = target[0];
         if (!(altitude >= minAltitudeDeg)) {
             return false;

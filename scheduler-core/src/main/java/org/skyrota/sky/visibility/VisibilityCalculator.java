@@ -4,6 +4,8 @@ import java.time.LocalDate;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Objects;
+import java.util.function.Function;
+import org.skyrota.plugin.MovingTarget;
 import org.skyrota.sky.events.SkyAtSite;
 import org.skyrota.sky.site.Night;
 import org.skyrota.sky.site.SiteLocation;
@@ -16,6 +18,11 @@ import org.skyrota.sky.site.SiteLocation;
  *
  * <p>Windows shorter than {@link VisibilityWindow#MIN_DURATION} are dropped (a minute's
  * sampling cannot see them reliably, and no visit fits in them).
+ *
+ * <p>It is also the path for a {@link MovingTarget} (a planet, the Moon, a comet): the same
+ * sampling and refinement, with the target's place asked for at every instant and corrected for
+ * the site's parallax. A moving target's place changes too little within a minute for the
+ * sampling to miss a window longer than {@link VisibilityWindow#MIN_DURATION}.
  */
 public final class VisibilityCalculator {
 
@@ -29,20 +36,18 @@ public final class VisibilityCalculator {
     /** The windows of every night from {@code from} to {@code to} inclusive, in time order. */
     public static List<VisibilityWindow> windows(SiteLocation site, FixedTarget target,
             ObservingConstraints constraints, LocalDate from, LocalDate to) {
-        Objects.requireNonNull(site, "site");
         Objects.requireNonNull(target, "target");
-        Objects.requireNonNull(constraints, "constraints");
-        Objects.requireNonNull(from, "from");
-        Objects.requireNonNull(to, "to");
-        if (to.isBefore(from)) {
-            throw new IllegalArgumentException("to must not be before from: from " + from + ", to " + to);
-        }
-        InstantConditions conditions = new InstantConditions(site, constraints);
-        List<VisibilityWindow> out = new ArrayList<>();
-        for (LocalDate d = from; !d.isAfter(to); d = d.plusDays(1)) {
-            night(conditions, target, Night.of(site, d), out);
-        }
-        return out;
+        return run(site, constraints, from, to, c -> new Probe() {
+            @Override
+            public boolean holds(double t) {
+                return c.holds(target, t);
+            }
+
+            @Override
+            public double altitudeDeg(double t) {
+                return c.altitudeDeg(target, t);
+            }
+        });
     }
 
     /** The windows of one night. */
@@ -51,7 +56,54 @@ public final class VisibilityCalculator {
         return windows(site, target, constraints, night, night);
     }
 
-    private static void night(InstantConditions c, FixedTarget target, Night night, List<VisibilityWindow> out) {
+    /**
+     * The windows of a moving target on every night from {@code from} to {@code to} inclusive,
+     * in time order, under the same constraints as a fixed target's; the altitude is topocentric
+     * (the target's distance gives its parallax). Whether the target is solar is the caller's
+     * concern: this only finds where the constraints hold.
+     */
+    public static List<VisibilityWindow> windows(SiteLocation site, MovingTarget target,
+            ObservingConstraints constraints, LocalDate from, LocalDate to) {
+        Objects.requireNonNull(target, "target");
+        return run(site, constraints, from, to, c -> new Probe() {
+            @Override
+            public boolean holds(double t) {
+                return c.holds(target, t);
+            }
+
+            @Override
+            public double altitudeDeg(double t) {
+                return c.altitudeDeg(target, t);
+            }
+        });
+    }
+
+    /** One thing to sample: whether every constraint holds at an instant, and the target's altitude. */
+    private interface Probe {
+        boolean holds(double t);
+
+        double altitudeDeg(double t);
+    }
+
+    private static List<VisibilityWindow> run(SiteLocation site, ObservingConstraints constraints, LocalDate from,
+            LocalDate to, Function<InstantConditions, Probe> probe) {
+        Objects.requireNonNull(site, "site");
+        Objects.requireNonNull(constraints, "constraints");
+        Objects.requireNonNull(from, "from");
+        Objects.requireNonNull(to, "to");
+        if (to.isBefore(from)) {
+            throw new IllegalArgumentException("to must not be before from: from " + from + ", to " + to);
+        }
+        InstantConditions conditions = new InstantConditions(site, constraints);
+        Probe p = probe.apply(conditions);
+        List<VisibilityWindow> out = new ArrayList<>();
+        for (LocalDate d = from; !d.isAfter(to); d = d.plusDays(1)) {
+            night(conditions, p, Night.of(site, d), out);
+        }
+        return out;
+    }
+
+    private static void night(InstantConditions c, Probe target, Night night, List<VisibilityWindow> out) {
         double t0 = SkyAtSite.toEpochSecond(night.start());
         double t1 = SkyAtSite.toEpochSecond(night.end());
         int n = (int) Math.ceil((t1 - t0) / STEP_SECONDS);
@@ -61,17 +113,17 @@ public final class VisibilityCalculator {
         double prevT = t0;
         for (int i = 0; i <= n; i++) {
             double t = Math.min(t1, t0 + i * STEP_SECONDS);
-            boolean ok = c.holds(target, t);
+            boolean ok = target.holds(t);
             double alt = c.lastAltitudeDeg();
             if (ok && !inside) {
-                start = i == 0 ? t : refine(c, target, prevT, t, true);
-                maxAlt = Math.max(alt, c.altitudeDeg(target, start));
+                start = i == 0 ? t : refine(target, prevT, t, true);
+                maxAlt = Math.max(alt, target.altitudeDeg(start));
                 inside = true;
             } else if (ok) {
                 maxAlt = Math.max(maxAlt, alt);
             } else if (inside) {
-                double end = refine(c, target, prevT, t, false);
-                maxAlt = Math.max(maxAlt, c.altitudeDeg(target, end));
+                double end = refine(target, prevT, t, false);
+                maxAlt = Math.max(maxAlt, target.altitudeDeg(end));
                 emit(night, start, end, maxAlt, out);
                 inside = false;
             }
@@ -86,11 +138,11 @@ public final class VisibilityCalculator {
      * The instant in (a, b] where the conditions change, to within REFINE_SECONDS, taken on the
      * side where they hold (the window's first or last instant).
      */
-    private static double refine(InstantConditions c, FixedTarget target, double a, double b, boolean opening) {
-        boolean atA = c.holds(target, a);
+    private static double refine(Probe target, double a, double b, boolean opening) {
+        boolean atA = target.holds(a);
         while (b - a > REFINE_SECONDS) {
             double m = 0.5 * (a + b);
-            if (c.holds(target, m) == atA) {
+            if (target.holds(m) == atA) {
                 a = m;
             } else {
                 b = m;

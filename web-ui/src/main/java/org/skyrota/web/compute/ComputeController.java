@@ -2,13 +2,20 @@ package org.skyrota.web.compute;
 
 import java.time.LocalDate;
 import java.time.temporal.ChronoUnit;
+import java.util.LinkedHashMap;
 import java.util.List;
+import java.util.Map;
 
+import org.skyrota.plugin.MovingTarget;
 import org.skyrota.web.compute.SkyComputations.Conditions;
 import org.skyrota.web.compute.SkyComputations.Darkness;
 import org.skyrota.web.compute.SkyComputations.Observer;
 import org.skyrota.web.compute.SkyComputations.Target;
+import org.skyrota.web.plugin.TargetKinds;
+import org.skyrota.web.system.FieldProblem;
+import org.skyrota.web.system.InvalidParametersException;
 import org.skyrota.web.system.QueryParameters;
+import org.springframework.beans.factory.ObjectProvider;
 import org.springframework.http.MediaType;
 import org.springframework.web.bind.annotation.GetMapping;
 import org.springframework.web.bind.annotation.RequestParam;
@@ -32,10 +39,15 @@ class ComputeController {
     static final double HIGHEST_MIN_ALTITUDE_DEG = 89;
     static final Darkness DEFAULT_DARKNESS = Darkness.ASTRONOMICAL;
 
-    private final SkyComputations sky;
+    /** Query parameters with this prefix are a moving target's parameters: {@code targetParameters.body=jupiter}. */
+    static final String PARAMETER_PREFIX = TargetKinds.PARAMETERS_FIELD + ".";
 
-    ComputeController(SkyComputations sky) {
+    private final SkyComputations sky;
+    private final ObjectProvider<TargetKinds> targetKinds;
+
+    ComputeController(SkyComputations sky, ObjectProvider<TargetKinds> targetKinds) {
         this.sky = sky;
+        this.targetKinds = targetKinds;
     }
 
     @GetMapping(path = "/api/almanac", produces = MediaType.APPLICATION_JSON_VALUE)
@@ -65,10 +77,13 @@ class ComputeController {
             @RequestParam(required = false) String darkness,
             @RequestParam(required = false) String minMoonSeparation,
             @RequestParam(required = false) String maxMoonIllumination,
-            @RequestParam(required = false) String tz) {
+            @RequestParam(required = false) String tz,
+            @RequestParam(required = false) String targetKind,
+            @RequestParam Map<String, String> query) {
         QueryParameters params = new QueryParameters();
-        double raDeg = params.requiredNumber("ra", ra, 0, 360);
-        double decDeg = params.requiredNumber("dec", dec, -90, 90);
+        boolean fixed = TargetKinds.isFixed(targetKind);
+        double raDeg = fixed ? params.requiredNumber("ra", ra, 0, 360) : 0;
+        double decDeg = fixed ? params.requiredNumber("dec", dec, -90, 90) : 0;
         Observer observer = observer(params, lat, lon, elevation, tz);
         LocalDate first = params.requiredDate("from", from, EARLIEST_DATE, LATEST_DATE);
         LocalDate last = params.requiredDate("to", to, EARLIEST_DATE, LATEST_DATE);
@@ -86,7 +101,26 @@ class ComputeController {
             }
         }
         params.throwIfInvalid();
+        if (!fixed) {
+            return VisibilityResponse.of(sky.movingWindows(observer, moving(targetKind, query), conditions, first, last));
+        }
         return VisibilityResponse.of(sky.windows(observer, new Target(raDeg % 360, decDeg), conditions, first, last));
+    }
+
+    /** The position of a plugin's target kind, from the {@code targetParameters.*} query parameters. */
+    private MovingTarget moving(String kind, Map<String, String> query) {
+        Map<String, String> parameters = new LinkedHashMap<>();
+        query.forEach((name, value) -> {
+            if (name.startsWith(PARAMETER_PREFIX) && name.length() > PARAMETER_PREFIX.length()) {
+                parameters.put(name.substring(PARAMETER_PREFIX.length()), value);
+            }
+        });
+        TargetKinds kinds = targetKinds.getIfAvailable();
+        if (kinds == null) {
+            throw new InvalidParametersException(List.of(new FieldProblem(TargetKinds.KIND_FIELD,
+                    "this server has no target-kind plugins; only fixed targets: " + kind)));
+        }
+        return kinds.resolve(kind, parameters);
     }
 
     private static Observer observer(QueryParameters params, String lat, String lon, String elevation, String tz) {

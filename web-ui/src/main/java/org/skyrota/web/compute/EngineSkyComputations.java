@@ -3,12 +3,14 @@ package org.skyrota.web.compute;
 import java.time.LocalDate;
 import java.util.List;
 
+import org.skyrota.plugin.MovingTarget;
 import org.skyrota.sky.almanac.Almanac;
 import org.skyrota.sky.almanac.NightAlmanac;
 import org.skyrota.sky.site.SiteLocation;
 import org.skyrota.sky.visibility.BatchVisibility;
 import org.skyrota.sky.visibility.FixedTarget;
 import org.skyrota.sky.visibility.ObservingConstraints;
+import org.skyrota.sky.visibility.VisibilityCalculator;
 import org.springframework.stereotype.Component;
 
 /**
@@ -29,6 +31,24 @@ class EngineSkyComputations implements SkyComputations {
 
     @Override
     public List<Window> windows(Observer observer, Target target, Conditions conditions, LocalDate from, LocalDate to) {
+        return BatchVisibility.windows(site(observer), FixedTarget.of(target.raDeg(), target.decDeg()),
+                        constraints(conditions), from, to)
+                .stream()
+                .map(w -> new Window(w.night(), w.start(), w.end(), w.maxAltitudeDeg()))
+                .toList();
+    }
+
+    /** Moving targets have no batch path: the per-instant one, with the site's parallax. */
+    @Override
+    public List<Window> movingWindows(Observer observer, MovingTarget target, Conditions conditions, LocalDate from,
+                                LocalDate to) {
+        return VisibilityCalculator.windows(site(observer), target, constraints(conditions), from, to)
+                .stream()
+                .map(w -> new Window(w.night(), w.start(), w.end(), w.maxAltitudeDeg()))
+                .toList();
+    }
+
+    private static ObservingConstraints constraints(Conditions conditions) {
         ObservingConstraints constraints = ObservingConstraints.of(conditions.minAltitudeDeg(), darkness(conditions.darkness()));
         if (conditions.minMoonSeparationDeg() != null) {
             constraints = constraints.withMinMoonSeparationDeg(conditions.minMoonSeparationDeg());
@@ -36,10 +56,7 @@ class EngineSkyComputations implements SkyComputations {
         if (conditions.maxMoonIllumination() != null) {
             constraints = constraints.withMaxMoonIllumination(conditions.maxMoonIllumination());
         }
-        return BatchVisibility.windows(site(observer), FixedTarget.of(target.raDeg(), target.decDeg()), constraints, from, to)
-                .stream()
-                .map(w -> new Window(w.night(), w.start(), w.end(), w.maxAltitudeDeg()))
-                .toList();
+        return constraints;
     }
 
     private static SiteLocation site(Observer o) {

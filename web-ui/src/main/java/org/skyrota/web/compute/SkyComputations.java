@@ -7,6 +7,8 @@ import java.util.List;
 import java.util.Objects;
 import java.util.Optional;
 
+import org.skyrota.plugin.MovingTarget;
+
 /**
  * The sky computations the compute endpoints need, in the server's own terms.
  *
@@ -21,6 +23,12 @@ public interface SkyComputations {
 
     /** The visibility windows of one fixed target for every night from {@code from} to {@code to} inclusive. */
     List<Window> windows(Observer observer, Target target, Conditions conditions, LocalDate from, LocalDate to);
+
+    /**
+     * The visibility windows of a moving target (a target-kind plugin's position: a planet, the Moon, a comet), its
+     * altitude topocentric, for every night from {@code from} to {@code to} inclusive.
+     */
+    List<Window> movingWindows(Observer observer, MovingTarget target, Conditions conditions, LocalDate from, LocalDate to);
 
     /**
      * Where the observer stands.

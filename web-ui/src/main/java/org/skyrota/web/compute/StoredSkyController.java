@@ -11,6 +11,8 @@ import org.skyrota.web.compute.SkyComputations.Conditions;
 import org.skyrota.web.compute.SkyComputations.Darkness;
 import org.skyrota.web.compute.SkyComputations.Observer;
 import org.skyrota.web.compute.SkyComputations.Target;
+import org.skyrota.plugin.MovingTarget;
+import org.skyrota.web.plugin.TargetKinds;
 import org.skyrota.web.request.ObservingRequest;
 import org.skyrota.web.request.RequestService;
 import org.skyrota.web.site.Site;
@@ -31,8 +33,10 @@ class StoredSkyController {
     private final SkyComputations sky;
     private final RequestService requests;
     private final SiteService sites;
+    private final TargetKinds targetKinds;
 
-    StoredSkyController(SkyComputations sky, RequestService requests, SiteService sites) {
+    StoredSkyController(SkyComputations sky, RequestService requests, SiteService sites, TargetKinds targetKinds) {
+        this.targetKinds = targetKinds;
         this.sky = sky;
         this.requests = requests;
         this.sites = sites;
@@ -60,12 +64,15 @@ class StoredSkyController {
         }
         Conditions conditions = new Conditions(r.getMinAltitudeDeg(), Darkness.valueOf(r.getDarkness().name()),
                 r.getMinMoonSeparationDeg(), r.getMaxMoonIllumination());
+        // A moving target's place is resolved once, with the plugins of this server.
+        MovingTarget moving = TargetKinds.isFixed(r.getTargetKind()) ? null
+                : targetKinds.resolve(r.getTargetKind(), r.getTargetParameters());
         List<SiteWindows> bySite = new ArrayList<>();
         NextNight next = null;
         SkyComputations.Window best = null;
         for (Site s : sites.all()) {
-            List<SkyComputations.Window> windows = sky.windows(observer(s), new Target(r.getRaDeg(), r.getDecDeg()),
-                    conditions, first, last);
+            List<SkyComputations.Window> windows = moving != null ? sky.movingWindows(observer(s), moving, conditions, first, last)
+                    : sky.windows(observer(s), new Target(r.getRaDeg(), r.getDecDeg()), conditions, first, last);
             bySite.add(new SiteWindows(s.getId(), s.getName(), windows.stream().map(WindowResponse::of).toList()));
             SkyComputations.Window earliest = windows.stream().min(Comparator.comparing(SkyComputations.Window::start)).orElse(null);
             if (earliest != null && (best == null || earliest.start().isBefore(best.start()))) {

@@ -15,6 +15,7 @@ import org.skyrota.web.equipment.TelescopeRepository;
 import org.skyrota.web.plan.PlanRevision;
 import org.skyrota.web.plan.PlanRevisionRepository;
 import org.skyrota.web.plan.PlanVisit;
+import org.skyrota.web.plugin.TargetKinds;
 import org.skyrota.web.request.ObservingRequest;
 import org.skyrota.web.request.ObservingRequestRepository;
 import org.springframework.stereotype.Component;
@@ -60,8 +61,11 @@ class PlanRecords {
                     || (night != null && !night.equals(v.getNight())) || (owner != null && !owner.equals(r.getOwner()))) {
                 continue;
             }
+            boolean fixed = TargetKinds.isFixed(r.getTargetKind());
             visits.add(new PlannedVisitRecord(v.getRequestId() * 1000 + v.getRepeatNo(), v.getRequestId(),
-                    r.getTargetName() + " (" + r.getProgram().getCode() + ")", r.getTargetName(), r.getRaDeg(), r.getDecDeg(),
+                    r.getTargetName() + " (" + r.getProgram().getCode() + ")", r.getTargetName(),
+                    // A moving target has no fixed position to export (the record's null).
+                    fixed ? Double.valueOf(r.getRaDeg()) : null, fixed ? Double.valueOf(r.getDecDeg()) : null,
                     t.getSite().getName(), t.getName(), v.getNight(), v.getStart(), v.getEnd(), r.getOwner(),
                     r.getProgram().getTitle(), r.getExposures().stream()
                     .map(e -> e.getFilterName() + " " + e.getCount() + "x" + trim(e.getSeconds()) + "s")

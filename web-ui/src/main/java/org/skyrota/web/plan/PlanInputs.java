@@ -9,6 +9,7 @@ import java.util.Set;
 
 import org.skyrota.web.equipment.InstrumentRepository;
 import org.skyrota.web.equipment.TelescopeRepository;
+import org.skyrota.web.plugin.TargetKinds;
 import org.skyrota.web.program.ProgramRepository;
 import org.skyrota.web.report.ObservationReportRepository;
 import org.skyrota.web.request.ObservingRequest;
@@ -31,10 +32,12 @@ public class PlanInputs {
     private final ObservingRequestRepository requests;
     private final ObservationReportRepository reports;
     private final PlanRevisionRepository revisions;
+    private final TargetKinds targetKinds;
 
     PlanInputs(SiteRepository sites, TelescopeRepository telescopes, InstrumentRepository instruments,
                ProgramRepository programs, ObservingRequestRepository requests, ObservationReportRepository reports,
-               PlanRevisionRepository revisions) {
+               PlanRevisionRepository revisions, TargetKinds targetKinds) {
+        this.targetKinds = targetKinds;
         this.sites = sites;
         this.telescopes = telescopes;
         this.instruments = instruments;
@@ -58,7 +61,7 @@ public class PlanInputs {
         List<PlanVisit> published = revisions.findFirstByStateOrderByIdDesc(PlanRevision.State.PUBLISHED)
                 .map(PlanRevision::getVisits).orElse(List.of());
         return PlanningMapper.map(new PlanningMapper.Input(chosen, telescopes.findAll(), instruments.findAll(),
-                programs.findAll(), accepted, observedRepeats(), first, last, pins, nights, published));
+                programs.findAll(), accepted, observedRepeats(), first, last, pins, nights, published), targetKinds);
     }
 
     /** Per request, the repeats a telescope reported as done. */

@@ -118,7 +118,7 @@ public class PlanService {
             String owner = user.reviewer() || user.username().equals(r.getOwner()) ? r.getOwner() : null;
             visits.add(new VisitView(v.key().toString(), v.getRequestId(), r.getTargetName(), r.getRaDeg(), r.getDecDeg(),
                     v.getTelescopeId(), site == null ? 0 : site, v.getNight(), v.getStart(), v.getEnd(), v.isPinned(),
-                    owner, owner, r.getProgram().getId()));
+                    owner, owner, r.getProgram().getId(), r.getTargetKind()));
         }
         visits.sort(Comparator.comparing(VisitView::start).thenComparing(VisitView::telescopeId));
         List<NightView> nights = rev.getNights().stream()

@@ -17,10 +17,13 @@ public final class PlanViews {
                            Instant publishedAt, String score, List<VisitView> visits, List<UnplacedView> unplaced,
                            List<NightView> closedNights) {}
 
-    /** {@code ownerName} and {@code owner} (the same user name) are null on another requester's visit. */
+    /**
+     * {@code ownerName} and {@code owner} (the same user name) are null on another requester's visit. For a moving
+     * target ({@code targetKind} other than {@code fixed}) {@code raDeg} and {@code decDeg} are 0 and mean nothing.
+     */
     public record VisitView(String id, long requestId, String targetName, double raDeg, double decDeg, long telescopeId,
                             long siteId, LocalDate night, Instant start, Instant end, boolean pinned, String ownerName,
-                            String owner, long programId) {}
+                            String owner, long programId, String targetKind) {}
 
     public record UnplacedView(long requestId, String visitId, String targetName, String reason) {}
 

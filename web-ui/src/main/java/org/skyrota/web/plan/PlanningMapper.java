@@ -27,11 +27,13 @@ import org.skyrota.planning.solver.PlannedVisit;
 import org.skyrota.sky.site.HorizonProfile;
 import org.skyrota.web.equipment.Instrument;
 import org.skyrota.web.equipment.Telescope;
+import org.skyrota.web.plugin.TargetKinds;
 import org.skyrota.web.program.Grant;
 import org.skyrota.web.program.Program;
 import org.skyrota.web.request.ObservingRequest;
 import org.skyrota.web.site.Site;
 import org.skyrota.web.site.SiteMapper;
+import org.skyrota.web.system.InvalidParametersException;
 
 /**
  * The one place where stored sites, equipment, programs and accepted requests become the planner's
@@ -42,6 +44,8 @@ import org.skyrota.web.site.SiteMapper;
  * between the planner's visit ids and the stable {@link VisitKey}s.
  */
 public final class PlanningMapper {
+
+    private static final org.slf4j.Logger LOG = org.slf4j.LoggerFactory.getLogger(PlanningMapper.class);
 
     private PlanningMapper() {}
 
@@ -89,7 +93,13 @@ public final class PlanningMapper {
         return start.atZone(zone).minusHours(12).toLocalDate();
     }
 
+    /** As {@link #map(Input, TargetKinds)} without plugins' target kinds: only fixed targets are planned. */
     public static Mapped map(Input in) {
+        return map(in, null);
+    }
+
+    /** The problem; requests of a kind {@code kinds} cannot resolve (a plugin since removed) are left out of it. */
+    public static Mapped map(Input in, TargetKinds kinds) {
         List<org.skyrota.planning.model.Site> sites = in.sites().stream().map(PlanningMapper::site).toList();
         Map<Long, ZoneId> zones = new HashMap<>();
         Map<Long, Long> siteByTelescope = new HashMap<>();
@@ -127,7 +137,11 @@ public final class PlanningMapper {
             if (open.isEmpty()) {
                 continue;
             }
-            Request request = request(r, open.size(), in.firstNight(), in.lastNight());
+            Target target = target(r, kinds);
+            if (target == null) {
+                continue;
+            }
+            Request request = request(r, target, open.size(), in.firstNight(), in.lastNight());
             requests.add(request);
             for (int i = 0; i < open.size(); i++) {
                 VisitKey key = new VisitKey(r.getId(), open.get(i));
@@ -203,7 +217,28 @@ public final class PlanningMapper {
         return new org.skyrota.planning.model.Program(String.valueOf(p.getId()), p.getCode(), hours, 1.0);
     }
 
-    static Request request(ObservingRequest r, int openRepeats, LocalDate first, LocalDate last) {
+    /**
+     * The planner's target of a stored request: its ICRS position, or the position its kind's plugin resolves (solar
+     * when the position says so, and then planned like the Sun: certified solar filter only). Null when the kind
+     * cannot be resolved any more.
+     */
+    static Target target(ObservingRequest r, TargetKinds kinds) {
+        if (TargetKinds.isFixed(r.getTargetKind())) {
+            return Target.fixed(r.getTargetName(), r.getRaDeg(), r.getDecDeg());
+        }
+        if (kinds == null) {
+            return null;
+        }
+        try {
+            return Target.moving(r.getTargetName(), kinds.resolve(r.getTargetKind(), r.getTargetParameters()));
+        } catch (InvalidParametersException e) {
+            LOG.warn("Request {} left out of the plan: its {} target cannot be resolved: {}", r.getId(),
+                    r.getTargetKind(), e.getMessage());
+            return null;
+        }
+    }
+
+    static Request request(ObservingRequest r, Target target, int openRepeats, LocalDate first, LocalDate last) {
         ObservingLimits limits = ObservingLimits.dark(r.getMinAltitudeDeg())
                 .withDarkness(darkness(r.getDarkness()))
                 .withMoon(r.getMinMoonSeparationDeg() == null ? 0 : r.getMinMoonSeparationDeg(),
@@ -217,7 +252,7 @@ public final class PlanningMapper {
         Duration tolerance = spaced && r.getRepeatToleranceHours() != null ? hours(r.getRepeatToleranceHours()) : Duration.ZERO;
         // Stored priorities count as the planner's do: 1 lowest, 5 highest.
         return new Request(String.valueOf(r.getId()), String.valueOf(r.getProgram().getId()), r.getOwner(),
-                Target.fixed(r.getTargetName(), r.getRaDeg(), r.getDecDeg()), steps, limits,
+                target, steps, limits,
                 r.getEarliestNight() == null ? first : r.getEarliestNight(),
                 r.getLatestNight() == null ? last : r.getLatestNight(),
                 openRepeats, interval, tolerance, r.getPriority());

@@ -39,7 +39,11 @@ class PluginController {
     /** A plugin's score rule: {@code rule} is the key of its weight in a run's {@code weights}. */
     record ScoreRuleView(String plugin, String rule, String description, WeightView defaultWeight) {}
 
-    record PluginsView(List<PluginView> plugins, List<ScoreRuleView> scoreRules, List<ProblemView> problems) {}
+    /** A target kind a request may name, with its parameters and a line of help on each. */
+    record TargetKindView(String kind, String plugin, String description, Map<String, String> parameters) {}
+
+    record PluginsView(List<PluginView> plugins, List<ScoreRuleView> scoreRules, List<ProblemView> problems,
+                       List<TargetKindView> targetKinds) {}
 
     @GetMapping("/api/plugins")
     PluginsView plugins() {
@@ -67,7 +71,11 @@ class PluginController {
         for (String p : scoreRules.problems()) {
             problems.add(new ProblemView("class path or plugins folder", null, p));
         }
-        return new PluginsView(List.copyOf(byId.values()), List.copyOf(rules), List.copyOf(problems));
+        List<TargetKindView> kinds = registry.targetKinds().stream()
+                .map(k -> new TargetKindView(k.kind(), k.descriptor().id(), k.description(),
+                        new java.util.TreeMap<>(k.parameterHelp())))
+                .toList();
+        return new PluginsView(List.copyOf(byId.values()), List.copyOf(rules), List.copyOf(problems), kinds);
     }
 
     /** "PlanExporter" becomes "plan-exporter". */

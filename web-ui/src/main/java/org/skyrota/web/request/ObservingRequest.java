@@ -2,7 +2,9 @@ package org.skyrota.web.request;
 
 import java.time.LocalDate;
 import java.util.ArrayList;
+import java.util.LinkedHashMap;
 import java.util.List;
+import java.util.Map;
 
 import jakarta.persistence.CollectionTable;
 import jakarta.persistence.Column;
@@ -13,6 +15,7 @@ import jakarta.persistence.Enumerated;
 import jakarta.persistence.FetchType;
 import jakarta.persistence.JoinColumn;
 import jakarta.persistence.ManyToOne;
+import jakarta.persistence.MapKeyColumn;
 import jakarta.persistence.OrderColumn;
 import jakarta.persistence.Table;
 
@@ -21,7 +24,10 @@ import org.skyrota.web.program.Program;
 import org.skyrota.web.system.ConflictException;
 import org.skyrota.web.system.StoredEntity;
 
-/** A request to observe one fixed target: what to take, under which sky, between which nights. */
+/**
+ * A request to observe one target, fixed (ICRS ra/dec) or of a plugin's kind (a planet, a comet: kind and parameters,
+ * resolved to a position when planned): what to take, under which sky, between which nights.
+ */
 @Entity
 @Table(name = "observing_request")
 public class ObservingRequest extends StoredEntity {
@@ -94,6 +100,17 @@ public class ObservingRequest extends StoredEntity {
     @CollectionTable(name = "request_exposure", joinColumns = @JoinColumn(name = "request_id"))
     @OrderColumn(name = "seq")
     private List<Exposure> exposures = new ArrayList<>();
+
+    /** {@code fixed} (ra/dec above) or a plugin's target kind, resolved from {@link #targetParameters}. */
+    @Column(name = "target_kind", nullable = false, length = 40)
+    private String targetKind = "fixed";
+
+    // Eager: a few short strings, read wherever the target is resolved, also outside a transaction.
+    @ElementCollection(fetch = FetchType.EAGER)
+    @CollectionTable(name = "request_target_parameter", joinColumns = @JoinColumn(name = "request_id"))
+    @MapKeyColumn(name = "param_name", length = 40)
+    @Column(name = "param_value", nullable = false, length = 200)
+    private Map<String, String> targetParameters = new LinkedHashMap<>();
 
     protected ObservingRequest() {}
 
@@ -217,5 +234,20 @@ public class ObservingRequest extends StoredEntity {
 
     public List<Exposure> getExposures() {
         return List.copyOf(exposures);
+    }
+
+    /** The target's kind and, for a plugin's kind, its parameters (none for {@code fixed}). */
+    public void setTargetKind(String kind, Map<String, String> parameters) {
+        this.targetKind = kind;
+        targetParameters.clear();
+        targetParameters.putAll(parameters);
+    }
+
+    public String getTargetKind() {
+        return targetKind;
+    }
+
+    public Map<String, String> getTargetParameters() {
+        return Map.copyOf(targetParameters);
     }
 }

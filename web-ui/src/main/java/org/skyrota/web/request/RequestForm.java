@@ -2,6 +2,7 @@ package org.skyrota.web.request;
 
 import java.time.LocalDate;
 import java.util.List;
+import java.util.Map;
 
 import jakarta.validation.Valid;
 import jakarta.validation.constraints.DecimalMax;
@@ -17,7 +18,10 @@ import jakarta.validation.constraints.Size;
  * An observing request as a client sends it. {@code ra} and {@code dec} are decimal degrees
  * or sexagesimal text (see {@link Sexagesimal}); absent conditions take the defaults of the
  * compute endpoints (minimum altitude 30°, astronomical darkness, no Moon limits). {@code owner}
- * defaults to the signed-in user; only a coordinator or an admin may name someone else.
+ * defaults to the signed-in user; only a coordinator or an admin may name someone else. {@code targetKind} is
+ * {@code fixed} when absent (then {@code ra} and {@code dec} are required) or a plugin's kind, whose
+ * {@code targetParameters} (for example {@code {"body":"jupiter"}}) give the position; {@code ra} and {@code dec} are
+ * then not needed.
  *
  * <p>{@code priority} runs from 1 (lowest) to 5 (highest). With more than one repeat,
  * {@code repeatIntervalHours} is the least start-to-start spacing between two visits and
@@ -29,8 +33,8 @@ record RequestForm(
         @NotNull Long programId,
         @Size(max = 100) String owner,
         @NotBlank @Size(max = 100) String targetName,
-        @NotBlank String ra,
-        @NotBlank String dec,
+        String ra,
+        String dec,
         @NotEmpty @Size(max = 50) List<@Valid @NotNull ExposureForm> exposures,
         @DecimalMin("-1") @DecimalMax("89") Double minAltitudeDeg,
         DarknessLimit darkness,
@@ -41,7 +45,9 @@ record RequestForm(
         @Min(1) @Max(100) Integer repeats,
         @DecimalMin(value = "0", inclusive = false) @DecimalMax("8784") Double repeatIntervalHours,
         @DecimalMin("0") @DecimalMax("8784") Double repeatToleranceHours,
-        @NotNull @Min(1) @Max(5) Integer priority) {
+        @NotNull @Min(1) @Max(5) Integer priority,
+        @Size(max = 40) String targetKind,
+        @Size(max = 20) Map<@NotBlank @Size(max = 40) String, @NotNull @Size(max = 200) String> targetParameters) {
 
     record ExposureForm(
             @NotBlank @Size(max = 40) String filter,

@@ -95,10 +95,6 @@ public class RequestImports {
     /** The form a user would have sent for {@code r}, checked as the form is. */
     RequestForm form(RequestRecord r, String where) {
         List<FieldProblem> problems = new ArrayList<>();
-        if (r.targetKind() != null && !r.targetKind().isBlank() && !r.targetKind().equalsIgnoreCase("fixed")) {
-            problems.add(new FieldProblem(where + "targetKind", "only fixed ICRS targets can be requested through the server: "
-                    + r.targetKind()));
-        }
         Long programId = program(r.program()).map(Program::getId).orElse(null);
         if (programId == null) {
             problems.add(new FieldProblem(where + "program", "names no stored program (by code or title): " + r.program()));
@@ -115,7 +111,8 @@ public class RequestImports {
                 r.raDeg() == null ? null : Double.toString(r.raDeg()), r.decDeg() == null ? null : Double.toString(r.decDeg()),
                 r.exposures().stream().map(e -> new RequestForm.ExposureForm(e.filter(), e.seconds(), e.count())).toList(),
                 r.minAltitudeDeg(), darkness, r.minMoonSeparationDeg(), r.maxMoonIllumination(), r.earliestNight(),
-                r.latestNight(), r.repeats(), r.intervalDays() > 0 ? r.intervalDays() * 24.0 : null, null, r.priority());
+                r.latestNight(), r.repeats(), r.intervalDays() > 0 ? r.intervalDays() * 24.0 : null, null, r.priority(),
+                r.targetKind(), r.targetParameters());
         for (ConstraintViolation<RequestForm> v : validator.validate(form)) {
             problems.add(new FieldProblem(where + v.getPropertyPath(), v.getMessage()));
         }

@@ -2,10 +2,12 @@ package org.skyrota.web.request;
 
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Map;
 
 import jakarta.persistence.criteria.Predicate;
 
 import org.skyrota.web.account.CurrentUser;
+import org.skyrota.web.plugin.TargetKinds;
 import org.skyrota.web.program.Program;
 import org.skyrota.web.program.ProgramRepository;
 import org.skyrota.web.system.AuditLog;
@@ -30,9 +32,12 @@ public class RequestService {
     private final ObservingRequestRepository requests;
     private final ProgramRepository programs;
     private final AuditLog audit;
+    private final TargetKinds targetKinds;
 
-    RequestService(ObservingRequestRepository requests, ProgramRepository programs, AuditLog audit) {
+    RequestService(ObservingRequestRepository requests, ProgramRepository programs, AuditLog audit,
+                   TargetKinds targetKinds) {
         this.audit = audit;
+        this.targetKinds = targetKinds;
         this.requests = requests;
         this.programs = programs;
     }
@@ -185,19 +190,27 @@ public class RequestService {
         return problems;
     }
 
-    private static void apply(RequestForm form, ObservingRequest r) {
+    private void apply(RequestForm form, ObservingRequest r) {
         List<FieldProblem> problems = new ArrayList<>();
-        double raDeg = Double.NaN;
-        double decDeg = Double.NaN;
-        try {
-            raDeg = Sexagesimal.rightAscensionDeg(form.ra());
-        } catch (IllegalArgumentException e) {
-            problems.add(new FieldProblem("ra", e.getMessage()));
-        }
-        try {
-            decDeg = Sexagesimal.declinationDeg(form.dec());
-        } catch (IllegalArgumentException e) {
-            problems.add(new FieldProblem("dec", e.getMessage()));
+        double raDeg = 0;
+        double decDeg = 0;
+        String kind = TargetKinds.normalise(form.targetKind());
+        Map<String, String> parameters = form.targetParameters() == null ? Map.of()
+                : form.targetParameters();
+        if (TargetKinds.isFixed(kind)) {
+            raDeg = coordinate("ra", form.ra(), problems);
+            decDeg = coordinate("dec", form.dec(), problems);
+            if (!parameters.isEmpty()) {
+                problems.add(new FieldProblem(TargetKinds.PARAMETERS_FIELD, "a fixed target takes ra and dec, no parameters"));
+            }
+        } else {
+            // Resolving is the check: the kind must be known and accept these parameters. A moving target's
+            // position is resolved again when planned; ra and dec are not stored for it.
+            try {
+                targetKinds.resolve(kind, parameters);
+            } catch (InvalidParametersException e) {
+                problems.addAll(e.problems());
+            }
         }
         if (form.earliestNight() != null && form.latestNight() != null && form.latestNight().isBefore(form.earliestNight())) {
             problems.add(new FieldProblem("latestNight", "must not be before earliestNight (" + form.earliestNight() + ")"));
@@ -208,6 +221,7 @@ public class RequestService {
             throw new InvalidParametersException(problems);
         }
         r.setTarget(form.targetName().trim(), raDeg, decDeg);
+        r.setTargetKind(kind, TargetKinds.isFixed(kind) ? Map.of() : parameters);
         r.setConditions(form.minAltitudeDeg() == null ? DEFAULT_MIN_ALTITUDE_DEG : form.minAltitudeDeg(),
                 form.darkness() == null ? DarknessLimit.ASTRONOMICAL : form.darkness(),
                 form.minMoonSeparationDeg(), form.maxMoonIllumination());
@@ -215,5 +229,18 @@ public class RequestService {
         r.setRepeatSpacing(form.repeatIntervalHours(), form.repeatIntervalHours() == null ? null
                 : form.repeatToleranceHours() == null ? 0.0 : form.repeatToleranceHours());
         r.setExposures(form.exposures().stream().map(e -> new Exposure(e.filter().trim(), e.seconds(), e.count())).toList());
+    }
+
+    private static double coordinate(String field, String text, List<FieldProblem> problems) {
+        if (text == null || text.isBlank()) {
+            problems.add(new FieldProblem(field, "must not be blank (a fixed target needs ra and dec)"));
+            return 0;
+        }
+        try {
+            return "ra".equals(field) ? Sexagesimal.rightAscensionDeg(text) : Sexagesimal.declinationDeg(text);
+        } catch (IllegalArgumentException e) {
+            problems.add(new FieldProblem(field, e.getMessage()));
+            return 0;
+        }
     }
 }

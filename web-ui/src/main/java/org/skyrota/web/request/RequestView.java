@@ -3,8 +3,9 @@ package org.skyrota.web.request;
 import java.time.Instant;
 import java.time.LocalDate;
 import java.util.List;
+import java.util.Map;
 
-/** A stored observing request as the API shows it; coordinates in decimal degrees. */
+/** A stored observing request as the API shows it; coordinates in decimal degrees (0 for a moving target's). */
 record RequestView(
         long id,
         long version,
@@ -27,7 +28,9 @@ record RequestView(
         RequestState state,
         String rejectionReason,
         Instant createdAt,
-        Instant updatedAt) {
+        Instant updatedAt,
+        String targetKind,
+        Map<String, String> targetParameters) {
 
     static RequestView of(ObservingRequest r) {
         return new RequestView(r.getId(), r.getVersion(), r.getProgram().getId(), r.getOwner(), r.getTargetName(),
@@ -36,6 +39,6 @@ record RequestView(
                 r.getMinAltitudeDeg(), r.getDarkness(), r.getMinMoonSeparationDeg(), r.getMaxMoonIllumination(),
                 r.getEarliestNight(), r.getLatestNight(), r.getRepeats(),
                 r.getRepeatIntervalHours(), r.getRepeatToleranceHours(), r.getPriority(), r.getState(), r.getRejectionReason(),
-                r.getCreatedAt(), r.getUpdatedAt());
+                r.getCreatedAt(), r.getUpdatedAt(), r.getTargetKind(), r.getTargetParameters());
     }
 }

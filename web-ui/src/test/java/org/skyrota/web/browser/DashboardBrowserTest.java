@@ -379,8 +379,42 @@ class DashboardBrowserTest {
         shot("21-requester-calendar-link");
     }
 
+    /**
+     * The form offers the server's target kinds: the solar-system plugin's planets ask for a body instead of RA and
+     * Dec; a body the plugin does not know is marked beside its own field (the server names
+     * targetParameters.body), a known one gets a preview and is saved.
+     */
     @Test
     @Order(12)
+    void aPlanetIsRequestedByItsKindAndBody() {
+        open("#/new");
+        WebElement form = wait.until(ExpectedConditions.visibilityOfElementLocated(By.id("request-form")));
+        type("targetName", "Jupiter run " + RUN);
+        browser.findElement(By.cssSelector("select[name=targetKind] option[value=planet]")).click();
+        assertThat(browser.findElement(By.id("target-coordinates")).isDisplayed()).isFalse();
+        WebElement body = wait.until(ExpectedConditions.visibilityOfElementLocated(By.name("targetParameters.body")));
+        assertThat(body.findElement(By.xpath("..")).getText()).contains("jupiter");
+        type("targetParameters.body", "vulcan");
+        chooseFirstProgram();
+        if (!accounts) {
+            type("owner", "student");
+        }
+        form.findElement(By.cssSelector("button[value=draft]")).click();
+        WebElement error = wait.until(ExpectedConditions.visibilityOfElementLocated(By.id("f-targetParameters_body-error")));
+        wait.until(d -> !error.getText().isBlank());
+        assertThat(error.getText()).contains("vulcan");
+        assertThat(browser.findElements(By.cssSelector("[aria-invalid=true]"))).hasSize(1);
+        shot("12a-planet-bad-body");
+        type("targetParameters.body", "jupiter");
+        wait.until(ExpectedConditions.presenceOfElementLocated(By.id("preview-table")));
+        shot("12b-planet-with-preview");
+        form.findElement(By.cssSelector("button[value=draft]")).click();
+        WebElement row = queueRow("Jupiter run " + RUN);
+        assertThat(row.findElement(By.cssSelector(".state")).getText()).isEqualTo("draft");
+    }
+
+    @Test
+    @Order(13)
     void theCoordinatorClosesANightWithAReasonThatTheGridShows() {
         signOutAndIn("coordinator");
         open("#/plan");

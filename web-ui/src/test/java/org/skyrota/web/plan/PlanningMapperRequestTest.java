@@ -10,6 +10,7 @@ import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.ValueSource;
 import org.junit.jupiter.api.Test;
 import org.skyrota.planning.model.Request;
+import org.skyrota.planning.model.Target;
 import org.skyrota.web.program.Program;
 import org.skyrota.web.request.DarknessLimit;
 import org.skyrota.web.request.Exposure;
@@ -35,21 +36,24 @@ class PlanningMapperRequestTest {
         return r;
     }
 
+    /** The target the mapper would have built for the request; its own mapping is not what these tests are about. */
+    static final Target TARGET = Target.fixed("NGC 2632", 130.1, 19.7);
+
     @ParameterizedTest(name = "stored priority {0} reaches the planner as {0}")
     @ValueSource(ints = {1, 2, 3, 4, 5})
     void priorityCrossesUnchanged(int priority) {
-        Request planned = PlanningMapper.request(stored(1, null, null, priority), 1, FIRST, LAST);
+        Request planned = PlanningMapper.request(stored(1, null, null, priority), TARGET, 1, FIRST, LAST);
         assertThat(planned.priority()).isEqualTo(priority);
     }
 
     @Test
     void theSpacingOfRepeatsCrossesAsDurations() {
-        Request planned = PlanningMapper.request(stored(3, 24.0, 2.0, 4), 3, FIRST, LAST);
+        Request planned = PlanningMapper.request(stored(3, 24.0, 2.0, 4), TARGET, 3, FIRST, LAST);
         assertThat(planned.repeats()).isEqualTo(3);
         assertThat(planned.interval()).isEqualTo(Duration.ofHours(24));
         assertThat(planned.tolerance()).isEqualTo(Duration.ofHours(2));
         // Fractions of an hour are kept to the second: 1.75 h is 105 minutes.
-        Request quarter = PlanningMapper.request(stored(2, 1.75, 0.25, 3), 2, FIRST, LAST);
+        Request quarter = PlanningMapper.request(stored(2, 1.75, 0.25, 3), TARGET, 2, FIRST, LAST);
         assertThat(quarter.interval()).isEqualTo(Duration.ofMinutes(105));
         assertThat(quarter.tolerance()).isEqualTo(Duration.ofMinutes(15));
         // The open window is the planning horizon where the request names no nights.
@@ -60,11 +64,11 @@ class PlanningMapperRequestTest {
     @Test
     void oneOpenVisitOrNoStoredIntervalMeansNoSpacing() {
         // Two of three repeats observed already: the one left is a single visit, which the planner wants unspaced.
-        Request last = PlanningMapper.request(stored(3, 24.0, 2.0, 3), 1, FIRST, LAST);
+        Request last = PlanningMapper.request(stored(3, 24.0, 2.0, 3), TARGET, 1, FIRST, LAST);
         assertThat(last.interval()).isZero();
         assertThat(last.tolerance()).isZero();
         // A request stored before the spacing fields existed.
-        Request old = PlanningMapper.request(stored(2, null, null, 3), 2, FIRST, LAST);
+        Request old = PlanningMapper.request(stored(2, null, null, 3), TARGET, 2, FIRST, LAST);
         assertThat(old.interval()).isZero();
         assertThat(old.tolerance()).isZero();
     }
