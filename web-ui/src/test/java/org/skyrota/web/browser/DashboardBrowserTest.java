@@ -436,6 +436,25 @@ class DashboardBrowserTest {
                 .noneMatch(td -> td.getText().contains("dome maintenance " + RUN)));
     }
 
+    @Test
+    @Order(14)
+    void theCoordinatorEditsATelescopeWithTheVersionRead() throws Exception {
+        String listing = body(get("/api/telescopes?size=1&sort=name", basic("coordinator")));
+        long telescopeId = (long) number(listing, "id");
+        long siteId = (long) number(listing, "siteId");
+        open("#/sites/" + siteId);
+        WebElement card = wait.until(ExpectedConditions.presenceOfElementLocated(By.cssSelector(".telescope[data-telescope='" + telescopeId + "']")));
+        WebElement edit = card.findElement(By.cssSelector(":scope > details"));
+        edit.findElement(By.tagName("summary")).click();
+        WebElement settle = edit.findElement(By.name("settleSeconds"));
+        settle.clear();
+        settle.sendKeys("17");
+        edit.findElement(By.cssSelector("button[type=submit]")).click();
+        wait.until(ExpectedConditions.textToBePresentInElementLocated(By.id("status"), "saved"));
+        shot("23-telescope-edited");
+        assertThat(body(get("/api/telescopes/" + telescopeId, basic("coordinator")))).contains("\"settleSeconds\":17");
+    }
+
     private void runPlanner(String screenshot) {
         type("runSeconds", "8");
         wait.until(ExpectedConditions.elementToBeClickable(By.id("run-start"))).click();
