@@ -125,6 +125,10 @@ export function field(label, input, help) {
   const id = input.id || (input.id = 'f-' + (input.name || Math.random().toString(36).slice(2)).replace(/[^\w-]/g, '_'));
   const err = el('span', { class: 'field-error', id: id + '-error', 'aria-live': 'polite' });
   input.setAttribute('aria-describedby', id + '-error');
+  // A message about the old value goes as soon as the value is changed; the next answer says whether it is right.
+  const fixed = () => { err.textContent = ''; input.removeAttribute('aria-invalid'); };
+  input.addEventListener('input', fixed);
+  input.addEventListener('change', fixed);
   return el('div', { class: 'field', dataset: { field: input.name || '' } },
     el('label', { for: id }, label), input, help ? el('small', { class: 'help' }, help) : null, err);
 }

@@ -161,6 +161,9 @@ class DashboardBrowserTest {
         shot("03-request-bad-field");
 
         type("dec", "-05:23:28");
+        // The message about the old value goes as soon as the field is changed.
+        assertThat(decError.getText()).isEmpty();
+        assertThat(browser.findElements(By.cssSelector("[aria-invalid=true]"))).isEmpty();
         // 5 is the highest priority, and the form says so.
         WebElement highest = browser.findElement(By.cssSelector("select[name=priority] option[value='5']"));
         assertThat(highest.getText()).isEqualTo("5 (highest)");
@@ -451,6 +454,9 @@ class DashboardBrowserTest {
         settle.sendKeys("17");
         edit.findElement(By.cssSelector("button[type=submit]")).click();
         wait.until(ExpectedConditions.textToBePresentInElementLocated(By.id("status"), "saved"));
+        By again = By.cssSelector(".telescope[data-telescope='" + telescopeId + "']");
+        wait.until(ExpectedConditions.textToBePresentInElementLocated(again, "settle 17 s"));
+        scrollTo(again);
         shot("23-telescope-edited");
         assertThat(body(get("/api/telescopes/" + telescopeId, basic("coordinator")))).contains("\"settleSeconds\":17");
     }
