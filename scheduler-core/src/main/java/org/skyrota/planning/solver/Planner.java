@@ -327,7 +327,9 @@ public final class Planner {
      * telescope-night ({@link RepackMoveFactory}; without it the optimum test stalled 1% short). Measured on the benchmarks: late
      * acceptance beat tabu search and simulated annealing on the CP-SAT optimum test's instance; a short list (50)
      * beat the usual 400 on planner-term (1.06 against 1.03 times greedy in 60 s); swap moves (two visits trade
-     * placements, rarely possible with per-visit lengths) only took evaluations from the others.
+     * placements, rarely possible with per-visit lengths) only took evaluations from the others. Grant trades
+     * ({@link GrantTradeMoveFactory}: a visit comes in, cheaper visits of its program go out to keep the grant) are
+     * the only way to improve a program that has used its whole grant.
      */
     private static final int LATE_ACCEPTANCE_SIZE = 50;
     private static final double GRANT_TRADE_WEIGHT = 0.5;
