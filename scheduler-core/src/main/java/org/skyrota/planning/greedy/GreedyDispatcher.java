@@ -19,7 +19,8 @@ import org.skyrota.planning.domain.Visit;
  *
  * <p>Two ways to break ties between visits of equal priority: {@link #byHand()}, the baseline, takes them in queue
  * order, the way a club schedules by hand; {@link #urgencyAware()} takes the one whose range closes first, then the
- * longest, which is a better start for the solver's search.
+ * longest. {@link #grantAware()}, the solver's start, walks the urgency-aware way twice so that programs keep their
+ * grants for their high priorities.
  */
 public final class GreedyDispatcher {
 
