@@ -325,13 +325,14 @@ public final class Planner {
      * Late acceptance over three kinds of move: change one visit's placement (or leave it out), place a visit while
      * ejecting and re-fitting what it overlaps ({@link EjectionMoveFactory}), and, half as often, repack a whole
      * telescope-night ({@link RepackMoveFactory}; without it the optimum test stalled 1% short). Measured on the benchmarks: late
-     * acceptance beat tabu search and simulated annealing on the CP-SAT optimum test's instance; a short list (50)
-     * beat the usual 400 on planner-term (1.06 against 1.03 times greedy in 60 s); swap moves (two visits trade
+     * acceptance beat tabu search and simulated annealing on the CP-SAT optimum test's instance; a short list
+     * beat the usual 400 on planner-term (50: 1.06 against 1.03 times greedy in 60 s; with grant trades, at 300,000
+     * evaluations, 20: 1.066, 50: 1.060, 200: worse; 10 left planner-small 1.1% short of the optimum); swap moves (two visits trade
      * placements, rarely possible with per-visit lengths) only took evaluations from the others. Grant trades
      * ({@link GrantTradeMoveFactory}: a visit comes in, cheaper visits of its program go out to keep the grant) are
      * the only way to improve a program that has used its whole grant.
      */
-    private static final int LATE_ACCEPTANCE_SIZE = 50;
+    private static final int LATE_ACCEPTANCE_SIZE = 20;
     private static final double GRANT_TRADE_WEIGHT = 0.5;
 
     private static LocalSearchPhaseConfig localSearch() {
