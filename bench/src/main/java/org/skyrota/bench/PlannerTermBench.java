@@ -23,7 +23,8 @@ import org.skyrota.planning.solver.SolveOptions;
  * planner-term: the invented term on the real sky engine. The greedy baseline and the planner (60 s) plan the same
  * candidates. placedHours are telescope hours of the placed visits; ratioToGreedy compares priority-weighted placed
  * time (priority weight times nominal minutes); secondsTo99 is when the best plan first reached 99% of the final
- * plan's weighted time with no hard violation; peakMemoryMb is the peak heap use over the run.
+ * plan's weighted time with no hard violation; peakMemoryMb is the peak heap use over the run; boundRatioToGreedy and
+ * grantBoundRatioToGreedy are two upper bounds on ratioToGreedy (telescope time, grants).
  */
 public final class PlannerTermBench {
     public static void main(String[] args) {
@@ -34,16 +35,16 @@ public final class PlannerTermBench {
                 "BENCH planner-term hard=%d placedHours=%.1f greedyPlacedHours=%.1f ratioToGreedy=%.3f secondsTo99=%.1f"
                         + " peakMemoryMb=%d visits=%d placed=%d greedyPlaced=%d candidates=%d placements=%d"
                         + " prepareSeconds=%.1f solveSeconds=%.1f greedyHard=%d boundRatioToGreedy=%.3f"
-                        + " urgencyGreedyPlacedHours=%.1f ratioToUrgencyGreedy=%.3f",
+                        + " urgencyGreedyPlacedHours=%.1f ratioToUrgencyGreedy=%.3f grantBoundRatioToGreedy=%.3f",
                 o.hard, o.placedHours, o.greedyHours, o.ratio, o.secondsTo99, peakHeapMb(), o.visits, o.placed,
                 o.greedyPlaced, o.prepared.candidateCount(), o.prepared.placementCount(), o.prepareSeconds,
-                o.solveSeconds, o.greedyHard, o.boundRatio, o.urgencyGreedyHours, o.ratioToUrgencyGreedy));
+                o.solveSeconds, o.greedyHard, o.boundRatio, o.urgencyGreedyHours, o.ratioToUrgencyGreedy, o.grantBoundRatio));
     }
 
     record Outcome(PlanningProblem problem, PreparedProblem prepared, PlanResult result, Planner planner, int hard,
                    double placedHours, double greedyHours, double ratio, double secondsTo99, int visits, int placed,
                    int greedyPlaced, double prepareSeconds, double solveSeconds, int greedyHard, double boundRatio,
-                   double urgencyGreedyHours, double ratioToUrgencyGreedy) {
+                   double urgencyGreedyHours, double ratioToUrgencyGreedy, double grantBoundRatio) {
     }
 
     static Outcome run(long seed, double seconds) {
@@ -72,6 +73,7 @@ public final class PlannerTermBench {
         }
         long greedyWeighted = weighted(prepared);
         double boundRatio = (double) weightedUpperBound(prepared) / greedyWeighted;
+        double grantBoundRatio = (double) grantUpperBound(prepared) / greedyWeighted;
         int greedyPlaced = greedy.planned().size();
         int greedyHard = greedy.hardViolations().size();
         for (Visit v : prepared.schedule().visits()) {
@@ -106,7 +108,7 @@ public final class PlannerTermBench {
         return new Outcome(problem, solved, result, planner, result.hardViolations().size(),
                 placedMinutes(solved) / 60.0, greedyHours, (double) finalWeighted / greedyWeighted, secondsTo99,
                 solved.schedule().visits().size(), result.planned().size(), greedyPlaced, prepareSeconds, solveSeconds,
-                greedyHard, boundRatio, urgencyHours, (double) finalWeighted / urgencyWeighted);
+                greedyHard, boundRatio, urgencyHours, (double) finalWeighted / urgencyWeighted, grantBoundRatio);
     }
 
     /**
@@ -148,6 +150,44 @@ public final class PlannerTermBench {
             }
         }
         return bound;
+    }
+
+    /**
+     * Another upper bound, from the grants instead of the telescope time: a program can at best fill its grant with
+     * its most valuable visits per granted minute (weighted time over the shortest length any candidate gives the
+     * visit), the last one split; a program whose visits all fit counts all of them. Grants are a hard rule, so no
+     * plan beats the sum over programs; programs without a grant count all their visits.
+     */
+    static long grantUpperBound(PreparedProblem p) {
+        java.util.Map<String, Long> grants = new java.util.HashMap<>();
+        p.schedule().grants().forEach(g -> grants.put(g.programId(), g.grantMinutes()));
+        java.util.Map<String, List<Visit>> byProgram = new java.util.HashMap<>();
+        for (Visit v : p.schedule().visits()) {
+            if (v.candidateCount() > 0) {
+                byProgram.computeIfAbsent(v.programId(), k -> new ArrayList<>()).add(v);
+            }
+        }
+        double bound = 0;
+        for (var e : byProgram.entrySet()) {
+            java.util.Map<Visit, Integer> shortest = new java.util.HashMap<>();
+            for (Visit v : e.getValue()) {
+                shortest.put(v, v.getCandidates().stream().mapToInt(c -> v.lengthOn(c.telescopeIndex())).min()
+                        .orElseThrow());
+            }
+            List<Visit> visits = new ArrayList<>(e.getValue());
+            visits.sort((a, b) -> Double.compare((double) b.priorityWeight() * b.nominalMinutes() / shortest.get(b),
+                    (double) a.priorityWeight() * a.nominalMinutes() / shortest.get(a)));
+            double left = grants.getOrDefault(e.getKey(), Long.MAX_VALUE);
+            for (Visit v : visits) {
+                double share = Math.min(1.0, left / shortest.get(v));
+                bound += share * v.priorityWeight() * v.nominalMinutes();
+                left -= share * shortest.get(v);
+                if (left <= 0) {
+                    break;
+                }
+            }
+        }
+        return (long) Math.floor(bound);
     }
 
     static long weighted(PreparedProblem p) {

@@ -5,6 +5,7 @@ import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.PriorityQueue;
+import java.util.TreeMap;
 
 import org.skyrota.planning.candidates.PreparedProblem;
 import org.skyrota.planning.domain.Placement;
@@ -18,32 +19,98 @@ import org.skyrota.planning.domain.Visit;
  *
  * <p>Two ways to break ties between visits of equal priority: {@link #byHand()}, the baseline, takes them in queue
  * order, the way a club schedules by hand; {@link #urgencyAware()} takes the one whose range closes first, then the
- * longest, which is a better start for the solver's search.
+ * longest. {@link #grantAware()}, the solver's start, walks the urgency-aware way twice so that programs keep their
+ * grants for their high priorities.
  */
 public final class GreedyDispatcher {
 
     private final boolean urgencyAware;
+    private final boolean grantAware;
 
     /** The baseline of the benchmarks: equal priorities in queue order. */
     public GreedyDispatcher() {
-        this(false);
+        this(false, false);
     }
 
-    private GreedyDispatcher(boolean urgencyAware) {
+    private GreedyDispatcher(boolean urgencyAware, boolean grantAware) {
         this.urgencyAware = urgencyAware;
+        this.grantAware = grantAware;
     }
 
     /** The club's way by hand: highest priority first, equal priorities in queue order. */
     public static GreedyDispatcher byHand() {
-        return new GreedyDispatcher(false);
+        return new GreedyDispatcher(false, false);
     }
 
     /** Highest priority first, then the request whose range closes first, then the longest visit. */
     public static GreedyDispatcher urgencyAware() {
-        return new GreedyDispatcher(true);
+        return new GreedyDispatcher(true, false);
+    }
+
+    /**
+     * {@link #urgencyAware()} in two walks, the solver's start. A walk through time spends a program's grant on
+     * whatever comes first, so a program with more requests than grant runs out early in the term on low priorities
+     * while its high priorities later on stay out. Here the first walk leaves out each program's visits below the
+     * priority at which its visits would fill its grant on their own ({@link #grantThresholds}); the second walk fills
+     * the time and grant left with everything else.
+     */
+    public static GreedyDispatcher grantAware() {
+        return new GreedyDispatcher(true, true);
     }
 
     public void dispatch(PreparedProblem prepared) {
+        if (!grantAware) {
+            walk(prepared, v -> true, new HashMap<>());
+            return;
+        }
+        Map<String, Integer> threshold = grantThresholds(prepared.schedule());
+        walk(prepared, v -> v.priority() >= threshold.getOrDefault(v.programId(), 0), new HashMap<>());
+        // The second walk keeps the first one's visits where they are and fits the rest around them.
+        Map<Integer, TreeMap<Integer, Integer>> taken = new HashMap<>();
+        for (Visit v : prepared.schedule().visits()) {
+            if (v.isPlaced() && !v.isPinned()) {
+                taken.computeIfAbsent(v.telescopeIndex(), k -> new TreeMap<>()).put(v.startMinute(), v.endMinute());
+            }
+        }
+        walk(prepared, v -> true, taken);
+    }
+
+    /**
+     * Per program with a grant: the lowest priority whose visits, together with all of higher priority, still fit
+     * in the grant at their nominal lengths, counting only visits that have a candidate at all. Priority 1 (nothing
+     * held back) where everything fits.
+     */
+    static Map<String, Integer> grantThresholds(org.skyrota.planning.domain.Schedule schedule) {
+        Map<String, long[]> minutesByPriority = new HashMap<>();
+        for (Visit v : schedule.visits()) {
+            if (v.candidateCount() > 0 && !v.isPinned()) {
+                minutesByPriority.computeIfAbsent(v.programId(), k -> new long[6])[Math.max(1, Math.min(5, v.priority()))]
+                        += v.nominalMinutes();
+            }
+        }
+        Map<String, Integer> threshold = new HashMap<>();
+        for (ProgramGrant g : schedule.grants()) {
+            long[] minutes = minutesByPriority.getOrDefault(g.programId(), new long[6]);
+            long sum = 0;
+            int lowest = 1;
+            for (int priority = 5; priority >= 1; priority--) {
+                sum += minutes[priority];
+                if (sum > g.grantMinutes()) {
+                    lowest = priority;
+                    break;
+                }
+            }
+            threshold.put(g.programId(), lowest);
+        }
+        return threshold;
+    }
+
+    /**
+     * One walk through time over the unplaced visits {@code allowed} accepts; {@code taken} holds, per telescope,
+     * intervals an earlier walk filled (start to end, not overlapping), which this walk keeps clear of.
+     */
+    private void walk(PreparedProblem prepared, java.util.function.Predicate<Visit> allowed,
+                      Map<Integer, TreeMap<Integer, Integer>> taken) {
         List<Visit> visits = prepared.schedule().visits();
         int telescopes = prepared.telescopes().size();
         Map<Integer, List<Visit>> startsAt = new HashMap<>();
@@ -66,7 +133,15 @@ public final class GreedyDispatcher {
                 pinnedIntervals.add(new int[] {v.telescopeIndex(), v.startMinute(), v.endMinute()});
                 continue;
             }
+            if (v.isPlaced() && !taken.isEmpty()) {
+                // Placed by an earlier walk: it counts against its program and its repeats, and stays.
+                commit(v, v.getPlacement(), programUsed, placedByRequest);
+                continue;
+            }
             v.setPlacement(null);
+            if (!allowed.test(v)) {
+                continue;
+            }
             for (Placement p : v.getCandidates()) {
                 byTelescopeMinute.computeIfAbsent(p.telescopeIndex(), k -> new HashMap<>())
                         .computeIfAbsent(p.startMinute(), k -> new ArrayList<>()).add(v);
@@ -96,7 +171,8 @@ public final class GreedyDispatcher {
                     continue;
                 }
                 int end = minute + v.lengthOn(t);
-                if (!fits(v, t, minute, end, pinnedIntervals, programUsed, grants, placedByRequest)) {
+                if (!fits(v, t, minute, end, pinnedIntervals, programUsed, grants, placedByRequest)
+                        || overlapsTaken(taken.get(t), minute, end)) {
                     continue;
                 }
                 if (best == null || better(v, best, prepared, queueOrder)) {
@@ -110,6 +186,18 @@ public final class GreedyDispatcher {
                 busyUntil[t] = minute + best.lengthOn(t);
             }
         }
+    }
+
+    private static boolean overlapsTaken(TreeMap<Integer, Integer> taken, int start, int end) {
+        if (taken == null) {
+            return false;
+        }
+        Map.Entry<Integer, Integer> before = taken.floorEntry(start);
+        if (before != null && before.getValue() > start) {
+            return true;
+        }
+        Integer next = taken.higherKey(start);
+        return next != null && next < end;
     }
 
     private static boolean fits(Visit v, int t, int start, int end, List<int[]> pinned, Map<String, Long> used,

@@ -87,6 +87,46 @@ class GreedyDispatcherTest {
         assertThat(firstStarted(urgent).requestId()).isEqualTo("closing");
     }
 
+    @Test
+    void theGrantAwareWalkKeepsAFullProgramsGrantForItsHighPriorities() {
+        // Worked by hand: the grant (90 min) holds two of these 45-minute visits. The two priority-1 visits are up
+        // hours before the three priority-5 ones, so a walk through time spends the whole grant on them. Priority 5
+        // alone asks for 135 min, more than the grant, so the grant-aware walk holds priority 1 back until the
+        // priority-5 visits had their turn; the grant is then full, and the priority-1 visits stay out.
+        List<Request> requests = List.of(request("early1", 1, 40, 200), request("early2", 1, 40, 205),
+                request("late1", 5, 40, 290), request("late2", 5, 40, 295), request("late3", 5, 40, 300));
+
+        PreparedProblem walk = prepare(requests, 1.5);
+        GreedyDispatcher.urgencyAware().dispatch(walk);
+        PreparedProblem grantAware = prepare(requests, 1.5);
+        GreedyDispatcher.grantAware().dispatch(grantAware);
+
+        assertThat(placedIds(walk)).containsExactlyInAnyOrder("early1", "early2");
+        assertThat(placedIds(grantAware)).hasSize(2).allSatisfy(id -> assertThat(id).startsWith("late"));
+        assertThat(grantAware.schedule().visits().stream().mapToLong(Visit::placedMinutes).sum()).isLessThanOrEqualTo(90);
+    }
+
+    @Test
+    void theGrantAwareWalkFillsWhatTheFirstWalkLeftWithTheVisitsItHeldBack() {
+        // Worked by hand: three priority-5 visits of about two hours on one target ask for more than the 5.5 h grant,
+        // so priority 1 is held back; only two of them fit in the target's six hours up, which leaves the grant room
+        // for one 45-minute priority-1 visit, and the second walk places exactly one.
+        List<Request> requests = List.of(request("early1", 1, 40, 200), request("early2", 1, 40, 205),
+                request("long1", 5, 120, 300), request("long2", 5, 120, 300), request("long3", 5, 120, 300));
+
+        PreparedProblem prepared = prepare(requests, 5.5);
+        GreedyDispatcher.grantAware().dispatch(prepared);
+
+        List<String> placed = placedIds(prepared);
+        assertThat(placed).filteredOn(id -> id.startsWith("long")).hasSize(2);
+        assertThat(placed).filteredOn(id -> id.startsWith("early")).hasSize(1);
+        assertThat(prepared.schedule().visits().stream().mapToLong(Visit::placedMinutes).sum()).isLessThanOrEqualTo(330);
+    }
+
+    private static List<String> placedIds(PreparedProblem prepared) {
+        return prepared.schedule().visits().stream().filter(Visit::isPlaced).map(Visit::requestId).toList();
+    }
+
     private static Visit firstStarted(PreparedProblem prepared) {
         return prepared.schedule().visits().stream().filter(Visit::isPlaced)
                 .min((a, b) -> Integer.compare(a.startMinute(), b.startMinute())).orElseThrow();
