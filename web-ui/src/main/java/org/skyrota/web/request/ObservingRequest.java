@@ -105,8 +105,10 @@ public class ObservingRequest extends StoredEntity {
     @Column(name = "target_kind", nullable = false, length = 40)
     private String targetKind = "fixed";
 
-    // Eager: a few short strings, read wherever the target is resolved, also outside a transaction.
+    // Eager: a few short strings, read wherever the target is resolved, also outside a transaction. Fetched in
+    // batches, so that a page of requests costs one more query, not one per request.
     @ElementCollection(fetch = FetchType.EAGER)
+    @BatchSize(size = 64)
     @CollectionTable(name = "request_target_parameter", joinColumns = @JoinColumn(name = "request_id"))
     @MapKeyColumn(name = "param_name", length = 40)
     @Column(name = "param_value", nullable = false, length = 200)
