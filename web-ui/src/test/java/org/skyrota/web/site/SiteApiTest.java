@@ -1,5 +1,6 @@
 package org.skyrota.web.site;
 
+import static org.assertj.core.api.Assertions.assertThat;
 import static org.hamcrest.Matchers.containsString;
 import static org.springframework.test.web.servlet.request.MockMvcRequestBuilders.delete;
 import static org.springframework.test.web.servlet.request.MockMvcRequestBuilders.get;
@@ -54,6 +55,7 @@ class SiteApiTest {
                 .andExpect(status().isCreated())
                 .andExpect(jsonPath("$.version").value(0))
                 .andReturn().getResponse().getHeader("Location");
+        assertThat(location).contains("/api/sites/");
 
         mvc.perform(get(location))
                 .andExpect(status().isOk())

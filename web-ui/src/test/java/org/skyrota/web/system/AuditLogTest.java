@@ -1,5 +1,6 @@
 package org.skyrota.web.system;
 
+import static org.assertj.core.api.Assertions.assertThat;
 import static org.springframework.security.test.web.servlet.request.SecurityMockMvcRequestPostProcessors.httpBasic;
 import static org.springframework.test.web.servlet.request.MockMvcRequestBuilders.delete;
 import static org.springframework.test.web.servlet.request.MockMvcRequestBuilders.get;
@@ -68,6 +69,7 @@ class AuditLogTest {
                         .content("{\"version\":0,\"name\":\"Hill\",\"latitudeDeg\":45,\"longitudeDeg\":7,\"elevationM\":400}"))
                 .andExpect(status().isConflict());
         mvc.perform(delete("/api/sites/" + id + "?version=1").with(httpBasic("cora", "password1"))).andExpect(status().isNoContent());
+        assertThat(sites.existsById(id)).as("the site is gone from storage").isFalse();
 
         mvc.perform(get("/api/audit?entityType=site&entityId=" + id).with(httpBasic("cora", "password1")))
                 .andExpect(status().isOk())
@@ -98,11 +100,14 @@ class AuditLogTest {
         long id = ((Number) JsonPath.read(request, "$.id")).longValue();
         mvc.perform(post("/api/requests/" + id + "/submit?version=0").with(httpBasic("ada", "password1"))).andExpect(status().isOk());
 
-        mvc.perform(get("/api/audit?entityType=request&entityId=" + id).with(httpBasic("cora", "password1")))
+        String log = mvc.perform(get("/api/audit?entityType=request&entityId=" + id).with(httpBasic("cora", "password1")))
                 .andExpect(jsonPath("$.items[0].action").value("state:submitted"))
                 .andExpect(jsonPath("$.items[0].actor").value("ada"))
                 .andExpect(jsonPath("$.items[0].before.state").value("draft"))
-                .andExpect(jsonPath("$.items[0].after.state").value("submitted"));
+                .andExpect(jsonPath("$.items[0].after.state").value("submitted"))
+                .andReturn().getResponse().getContentAsString();
+        // Newest first: the submission, then the creation, and nothing else for this request.
+        assertThat(JsonPath.<java.util.List<String>>read(log, "$.items[*].action")).containsExactly("state:submitted", "create");
         mvc.perform(get("/api/audit").with(httpBasic("ada", "password1"))).andExpect(status().isForbidden());
     }
 }

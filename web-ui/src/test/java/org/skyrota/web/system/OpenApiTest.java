@@ -1,9 +1,12 @@
 package org.skyrota.web.system;
 
+import static org.assertj.core.api.Assertions.assertThat;
 import static org.hamcrest.Matchers.hasKey;
 import static org.springframework.test.web.servlet.request.MockMvcRequestBuilders.get;
 import static org.springframework.test.web.servlet.result.MockMvcResultMatchers.jsonPath;
 import static org.springframework.test.web.servlet.result.MockMvcResultMatchers.status;
+
+import com.jayway.jsonpath.JsonPath;
 
 import org.junit.jupiter.api.Test;
 import org.springframework.beans.factory.annotation.Autowired;
@@ -31,6 +34,9 @@ class OpenApiTest {
                 .andExpect(jsonPath("$.paths", hasKey("/api/instruments")))
                 .andExpect(jsonPath("$.paths", hasKey("/api/programs")))
                 .andExpect(jsonPath("$.paths", hasKey("/api/requests/{id}/submit")));
+        String document = mvc.perform(get("/v3/api-docs")).andReturn().getResponse().getContentAsString();
+        assertThat(JsonPath.<java.util.Map<String, Object>>read(document, "$.paths"))
+                .containsKeys("/api/requests/import", "/api/alerts", "/api/plugins", "/api/planner/runs");
         mvc.perform(get("/swagger-ui/index.html")).andExpect(status().isOk());
     }
 }
