@@ -71,10 +71,12 @@ public class RequestImports {
         List<FieldProblem> problems = new ArrayList<>();
         List<RequestView> stored = tx.execute(status -> {
             List<RequestView> out = new ArrayList<>();
+            // Read once for the whole file, not once a record.
+            List<Program> known = programs.findAll();
             for (int i = 0; i < read.requests().size(); i++) {
                 String where = "record " + (i + 1) + ": ";
                 try {
-                    RequestForm form = form(read.requests().get(i), where);
+                    RequestForm form = form(read.requests().get(i), where, known);
                     out.add(requests.create(form));
                 } catch (InvalidParametersException e) {
                     e.problems().forEach(p -> problems.add(p.field().startsWith("record ") ? p
@@ -94,8 +96,12 @@ public class RequestImports {
 
     /** The form a user would have sent for {@code r}, checked as the form is. */
     RequestForm form(RequestRecord r, String where) {
+        return form(r, where, programs.findAll());
+    }
+
+    private RequestForm form(RequestRecord r, String where, List<Program> stored) {
         List<FieldProblem> problems = new ArrayList<>();
-        Long programId = program(r.program()).map(Program::getId).orElse(null);
+        Long programId = program(r.program(), stored).map(Program::getId).orElse(null);
         if (programId == null) {
             problems.add(new FieldProblem(where + "program", "names no stored program (by code or title): " + r.program()));
         }
@@ -122,12 +128,12 @@ public class RequestImports {
         return form;
     }
 
-    private Optional<Program> program(String codeOrTitle) {
+    private static Optional<Program> program(String codeOrTitle, List<Program> stored) {
         if (codeOrTitle == null || codeOrTitle.isBlank()) {
             return Optional.empty();
         }
         String wanted = codeOrTitle.trim();
-        return programs.findAll().stream()
+        return stored.stream()
                 .filter(p -> wanted.equalsIgnoreCase(p.getCode()) || wanted.equalsIgnoreCase(p.getTitle()))
                 .findFirst();
     }
