@@ -233,6 +233,31 @@ class PlannerFacadeTest {
     }
 
     @Test
+    void aProgressListenerThatNeverReturnsDoesNotStopTheRunFromEnding() throws Exception {
+        // Regression: the run's final plan used to be handed over only after the listener had returned from the
+        // previous update, so a listener stuck on a dead event stream held the run "running" for good. (The same
+        // wait, reached through a lost permit in OptaPlanner 10.1.0's best-solution consumer, is what left runs
+        // hanging now and then.)
+        PreparedProblem prepared = planner.prepare(TestProblems.random(5, 2, 2, 30), shortRun);
+        java.util.concurrent.CountDownLatch never = new java.util.concurrent.CountDownLatch(1);
+        long started = System.nanoTime();
+
+        PlanResult result = CompletableFuture.supplyAsync(() -> planner.solvePrepared(prepared,
+                SolveOptions.of(Duration.ofMillis(500)).withSeed(2), p -> {
+                    try {
+                        never.await();
+                    } catch (InterruptedException e) {
+                        Thread.currentThread().interrupt();
+                    }
+                })).get(60, TimeUnit.SECONDS);
+
+        // The time limit, the relay's wait for the stuck listener, and room for a busy machine.
+        assertThat(Duration.ofNanos(System.nanoTime() - started)).isLessThan(Duration.ofSeconds(40));
+        assertThat(result.score().hardScore()).isZero();
+        never.countDown();
+    }
+
+    @Test
     void aRunCancelledBeforeItStartsReturnsItsStartPlanAtOnce() {
         Cancellation cancellation = new Cancellation();
         cancellation.cancel();

@@ -19,6 +19,7 @@ import org.optaplanner.core.api.score.constraint.ConstraintMatch;
 import org.optaplanner.core.api.score.constraint.ConstraintMatchTotal;
 import org.optaplanner.core.api.score.stream.ConstraintProvider;
 import org.optaplanner.core.api.solver.SolutionManager;
+import org.optaplanner.core.api.solver.Solver;
 import org.optaplanner.core.api.solver.SolverFactory;
 import org.optaplanner.core.api.solver.SolverJob;
 import org.optaplanner.core.api.solver.SolverManager;
@@ -203,13 +204,22 @@ public final class Planner {
         long startNanos = System.nanoTime();
         Cancellation cancellation = options.cancellation();
         Schedule solved;
-        try (SolverManager<Schedule, Long> manager = SolverManager.create(factory)) {
+        ProgressRelay relay = new ProgressRelay(progress);
+        // New best plans are taken from the solver's own event (on its thread, where they are cheap to read) and
+        // handed to the caller on a thread of its own, newest first. SolverManager.solveAndListen is not used: in
+        // OptaPlanner 10.1.0 its hand-over to the best-solution consumer can lose a permit when a new best plan
+        // arrives just as the previous one is taken, and then the job waits for ever for its final plan.
+        SolverFactory<Schedule> listening = () -> {
+            Solver<Schedule> solver = factory.buildSolver();
+            solver.addEventListener(event -> relay.offer(progressOf(event.getNewBestSolution(), startNanos)));
+            return solver;
+        };
+        try (SolverManager<Schedule, Long> manager = SolverManager.create(listening)) {
             if (cancellation != null && cancellation.isCancelled()) {
                 // Cancelled while the candidates were prepared: the start plan is the best there is.
                 solved = prepared.schedule();
             } else {
-                SolverJob<Schedule, Long> job = manager.solveAndListen(1L, id -> prepared.schedule(),
-                        best -> progress.accept(progressOf(best, startNanos)));
+                SolverJob<Schedule, Long> job = manager.solve(1L, id -> prepared.schedule(), null);
                 // Ending the job through the solver manager stops the search between two steps and keeps its best
                 // plan; interrupting this thread instead would tear the solver down in the middle of a step.
                 Runnable stopListening = cancellation == null ? () -> { } : cancellation.onCancel(job::terminateEarly);
@@ -223,12 +233,14 @@ public final class Planner {
                 }
             }
             // Always report the final plan, also when the search found nothing better than its start.
-            progress.accept(progressOf(solved, startNanos));
+            relay.offer(progressOf(solved, startNanos));
         } catch (InterruptedException e) {
             Thread.currentThread().interrupt();
             throw new IllegalStateException("planner run interrupted", e);
         } catch (ExecutionException e) {
             throw new IllegalStateException("planner run failed: " + e.getCause().getMessage(), e.getCause());
+        } finally {
+            relay.close();
         }
         PreparedProblem result = new PreparedProblem(prepared.problem(), solved, prepared.telescopes(), prepared.sites(),
                 prepared.requestByVisit(), prepared.statsByVisit(), prepared.candidateCount(), prepared.placementCount());
