@@ -41,12 +41,16 @@ import java.util.regex.Pattern;
  * (the same mix, not counted) comes first. Afterwards every acknowledged submission, warm-up ones included, is read
  * back by id; {@code lost} counts those missing or changed. {@code errors} counts answers other than 2xx and calls
  * that got no answer. With {@code --pace=N} each client sends N calls a second on a fixed schedule instead of
- * one after another, and a call's latency counts from when it was due.
+ * one after another, and a call's latency counts from when it was due. {@code --mix=S,Q} sets the percentages of
+ * submissions and queue reads (the rest are plan reads), to measure one kind of call alone.
  */
 public final class LoadBench {
 
     private static final Pattern ID = Pattern.compile("\"id\"\\s*:\\s*(\\d+)");
     private static final Pattern COOKIE = Pattern.compile("^([^=;]+)=([^;]*)");
+    private static final AtomicLong CALLS = new AtomicLong();
+    private static int submitShare = 20;
+    private static int queueShare = 70;
 
     public static void main(String[] args) throws Exception {
         Map<String, String> opts = options(args);
@@ -56,6 +60,10 @@ public final class LoadBench {
         // 0: closed loop, every client sends its next call as soon as the last is answered. Above 0: each client
         // sends that many calls a second on a fixed schedule, as a person or a script with think time does.
         double pace = Double.parseDouble(opts.getOrDefault("pace", "0"));
+        // Percentages of submissions and queue reads; the rest are plan reads. Other mixes isolate one kind of call.
+        String[] mix = opts.getOrDefault("mix", "20,50").split(",");
+        submitShare = Integer.parseInt(mix[0].trim());
+        queueShare = submitShare + Integer.parseInt(mix[1].trim());
         Path jar = Path.of(opts.getOrDefault("jar", "web-ui/target/skyrota.jar"));
         if (!Files.isRegularFile(jar)) {
             throw new IllegalStateException("no server jar at " + jar.toAbsolutePath() + "; build it with mvn -pl web-ui -am package");
@@ -91,6 +99,22 @@ public final class LoadBench {
                     port, clients, setup.publishedVisits);
 
             ConcurrentLinkedQueue<long[]> acknowledged = new ConcurrentLinkedQueue<>();
+            // Calls a second in each 10 s, warm-up included, on stderr: shows when the server's JIT has settled.
+            Thread trace = new Thread(() -> {
+                long last = 0;
+                for (int t = 10; ; t += 10) {
+                    try {
+                        Thread.sleep(10_000);
+                    } catch (InterruptedException e) {
+                        return;
+                    }
+                    long now = CALLS.get();
+                    System.err.printf(Locale.ROOT, "load: %4d s %7.1f calls/s%n", t, (now - last) / 10.0);
+                    last = now;
+                }
+            }, "load-trace");
+            trace.setDaemon(true);
+            trace.start();
             phase(pool, setup, clients, warmupSeconds, pace, acknowledged, null);
             Stats stats = new Stats();
             long start = System.nanoTime();
@@ -103,10 +127,11 @@ public final class LoadBench {
             System.err.printf(Locale.ROOT, "load: %d calls (%d submissions, %d queue reads, %d plan reads), %d acknowledged submissions checked%n",
                     latencies.length, stats.submissions.get(), stats.queueReads.get(), stats.planReads.get(), acknowledged.size());
             System.out.printf(Locale.ROOT, "BENCH load requestsPerSecond=%.1f p50Ms=%.2f p99Ms=%.2f errors=%d lost=%d clients=%d seconds=%d"
-                            + " submissions=%d acknowledged=%d pacePerClient=%s%n",
+                            + " submissions=%d acknowledged=%d pacePerClient=%s mix=%d,%d,%d%n",
                     latencies.length / elapsed, percentile(latencies, 0.50) / 1e6, percentile(latencies, 0.99) / 1e6,
                     stats.errors.get(), lost, clients, seconds, stats.submissions.get(), acknowledged.size(),
-                    pace > 0 ? String.format(Locale.ROOT, "%.1f", pace) : "closed-loop");
+                    pace > 0 ? String.format(Locale.ROOT, "%.1f", pace) : "closed-loop", submitShare,
+                    queueShare - submitShare, 100 - queueShare);
         } finally {
             pool.shutdownNow();
             server.destroy();
@@ -301,7 +326,7 @@ public final class LoadBench {
                     String name = null;
                     try {
                         HttpResponse<String> r;
-                        if (pick < 20) {
+                        if (pick < submitShare) {
                             name = "NGC " + random.nextInt(1, 7841) + " " + client.username + "-" + random.nextInt(1 << 30);
                             String body = "{\"programId\":" + setup.programId + ",\"targetName\":\"" + name + "\",\"ra\":"
                                     + random.nextInt(0, 36000) / 100.0 + ",\"dec\":" + (random.nextInt(0, 17000) / 100.0 - 85)
@@ -318,7 +343,7 @@ public final class LoadBench {
                             if (stats != null) {
                                 stats.submissions.incrementAndGet();
                             }
-                        } else if (pick < 70) {
+                        } else if (pick < queueShare) {
                             r = client.send(setup.http, client.request(setup.base, "/api/requests?size=20&page=" + random.nextInt(3)).GET().build());
                             ok = r.statusCode() == 200;
                             if (stats != null) {
@@ -344,6 +369,7 @@ public final class LoadBench {
                         return;
                     }
                     long took = System.nanoTime() - t0;
+                    CALLS.incrementAndGet();
                     if (ackedId > 0) {
                         acknowledged.add(new long[] {ackedId, clientIndex, name.hashCode()});
                     }

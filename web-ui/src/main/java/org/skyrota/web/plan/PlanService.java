@@ -10,6 +10,7 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
+import java.util.concurrent.atomic.AtomicReference;
 import java.util.function.Consumer;
 
 import org.skyrota.web.account.CurrentUser;
@@ -39,8 +40,12 @@ import org.skyrota.web.system.ConflictException;
 import org.skyrota.web.system.FieldProblem;
 import org.skyrota.web.system.InvalidParametersException;
 import org.skyrota.web.system.NotFoundException;
+import org.skyrota.web.system.StoredChanges;
 import org.springframework.stereotype.Service;
+import org.springframework.transaction.PlatformTransactionManager;
+import org.springframework.transaction.annotation.Propagation;
 import org.springframework.transaction.annotation.Transactional;
+import org.springframework.transaction.support.TransactionTemplate;
 
 /**
  * The draft and the published plan: reading them, a coordinator's overrides on the draft (each scored before it is
@@ -58,10 +63,20 @@ public class PlanService {
     private final RequestService requestService;
     private final PlanScorer scorer;
     private final AuditLog audit;
+    private final StoredChanges changes;
+    private final TransactionTemplate readOnly;
+
+    /** How long a kept published view may be used at most, even when nothing this server saw has changed. */
+    static final Duration PUBLISHED_VIEW_MAX_AGE = Duration.ofSeconds(5);
+
+    /** The published plan as every reader gets it before narrowing, with the change count it was built at. */
+    private record PublishedSnapshot(long changeCount, long builtAtNanos, PlanView full, Map<Long, Long> siteOf) {}
+
+    private final AtomicReference<PublishedSnapshot> publishedSnapshot = new AtomicReference<>();
 
     PlanService(PlanRevisionRepository revisions, ObservingRequestRepository requests, TelescopeRepository telescopes,
                 ProgramRepository programs, ObservationReportRepository reports, RequestService requestService,
-                PlanScorer scorer, AuditLog audit) {
+                PlanScorer scorer, AuditLog audit, StoredChanges changes, PlatformTransactionManager transactions) {
         this.revisions = revisions;
         this.requests = requests;
         this.telescopes = telescopes;
@@ -70,18 +85,72 @@ public class PlanService {
         this.requestService = requestService;
         this.scorer = scorer;
         this.audit = audit;
+        this.changes = changes;
+        this.readOnly = new TransactionTemplate(transactions);
+        readOnly.setReadOnly(true);
     }
 
     // ---- reading ----
 
     @Transactional(readOnly = true)
     public PlanView draft(LocalDate from, LocalDate to, Long siteId) {
-        return view(revisions.findFirstByStateOrderByIdDesc(PlanRevision.State.DRAFT), "draft", from, to, siteId);
+        return view(revisions.findFirstByStateOrderByIdDesc(PlanRevision.State.DRAFT), "draft", from, to, siteId,
+                siteByTelescope(), false);
     }
 
-    @Transactional(readOnly = true)
+    /**
+     * The published plan, narrowed to nights and a site. It is read by every requester and every observatory's
+     * script, and changes only when a plan is published or a request or telescope in it is edited, so the view is
+     * built once and kept until then (or for {@link #PUBLISHED_VIEW_MAX_AGE}); each reader gets it narrowed and with
+     * other people's names left out.
+     */
+    @Transactional(propagation = Propagation.NOT_SUPPORTED)
     public PlanView published(LocalDate from, LocalDate to, Long siteId) {
-        return view(revisions.findFirstByStateOrderByIdDesc(PlanRevision.State.PUBLISHED), "published", from, to, siteId);
+        // The count is taken before the rows are read: a change committed meanwhile makes the next reader rebuild.
+        long count = publishedInputChanges();
+        PublishedSnapshot kept = publishedSnapshot.get();
+        if (kept == null || kept.changeCount() != count
+                || System.nanoTime() - kept.builtAtNanos() > PUBLISHED_VIEW_MAX_AGE.toNanos()) {
+            long builtAt = System.nanoTime();
+            kept = readOnly.execute(status -> {
+                Map<Long, Long> siteOf = siteByTelescope();
+                PlanView full = view(revisions.findFirstByStateOrderByIdDesc(PlanRevision.State.PUBLISHED), "published",
+                        null, null, null, siteOf, true);
+                return new PublishedSnapshot(count, builtAt, full, Map.copyOf(siteOf));
+            });
+            publishedSnapshot.set(kept);
+        }
+        return narrowed(kept, from, to, siteId, CurrentUser.get());
+    }
+
+    private long publishedInputChanges() {
+        // New requests cannot be in a published plan yet, so only their edits and deletions count.
+        return changes.anyChange(PlanRevision.class) + changes.updatedOrDeleted(ObservingRequest.class)
+                + changes.updatedOrDeleted(Telescope.class);
+    }
+
+    /** {@code full} (built with every owner named) narrowed to nights and a site, with only the names this user may see. */
+    private static PlanView narrowed(PublishedSnapshot kept, LocalDate from, LocalDate to, Long siteId, CurrentUser user) {
+        PlanView full = kept.full();
+        if (full.revision() == null) {
+            return new PlanView(null, null, full.state(), from, to, null, null, List.of(), List.of(), List.of());
+        }
+        List<VisitView> visits = new ArrayList<>();
+        for (VisitView v : full.visits()) {
+            if (!inRange(v.night(), from, to) || (siteId != null && siteId != v.siteId())) {
+                continue;
+            }
+            boolean mayName = user.reviewer() || user.username().equals(v.owner());
+            visits.add(mayName ? v : new VisitView(v.id(), v.requestId(), v.targetName(), v.raDeg(), v.decDeg(),
+                    v.telescopeId(), v.siteId(), v.night(), v.start(), v.end(), v.pinned(), null, null, v.programId(),
+                    v.targetKind()));
+        }
+        List<NightView> nights = full.closedNights().stream()
+                .filter(n -> inRange(n.night(), from, to))
+                .filter(n -> siteId == null || siteId.equals(kept.siteOf().get(n.telescopeId())))
+                .toList();
+        return new PlanView(full.revision(), full.version(), full.state(), full.firstNight(), full.lastNight(),
+                full.publishedAt(), full.score(), visits, full.unplaced(), nights);
     }
 
     /** The published revision itself, for the exports (null when nothing is published). */
@@ -92,14 +161,15 @@ public class PlanService {
         return rev;
     }
 
-    private PlanView view(Optional<PlanRevision> found, String kind, LocalDate from, LocalDate to, Long siteId) {
+    /** With {@code everyOwner} every visit names its owner, else only those the signed-in user may see. */
+    private PlanView view(Optional<PlanRevision> found, String kind, LocalDate from, LocalDate to, Long siteId,
+                          Map<Long, Long> siteOf, boolean everyOwner) {
         if (found.isEmpty()) {
             return new PlanView(null, null, kind, from, to, null, null, List.of(), List.of(), List.of());
         }
         PlanRevision rev = found.get();
-        CurrentUser user = CurrentUser.get();
+        CurrentUser user = everyOwner ? null : CurrentUser.get();
         Map<Long, ObservingRequest> byId = requestsOf(rev.getVisits());
-        Map<Long, Long> siteOf = siteByTelescope();
         List<VisitView> visits = new ArrayList<>();
         List<UnplacedView> unplaced = new ArrayList<>();
         for (PlanVisit v : rev.getVisits()) {
@@ -115,7 +185,7 @@ public class PlanService {
             if (!inRange(v.getNight(), from, to) || (siteId != null && !siteId.equals(site))) {
                 continue;
             }
-            String owner = user.reviewer() || user.username().equals(r.getOwner()) ? r.getOwner() : null;
+            String owner = everyOwner || user.reviewer() || user.username().equals(r.getOwner()) ? r.getOwner() : null;
             visits.add(new VisitView(v.key().toString(), v.getRequestId(), r.getTargetName(), r.getRaDeg(), r.getDecDeg(),
                     v.getTelescopeId(), site == null ? 0 : site, v.getNight(), v.getStart(), v.getEnd(), v.isPinned(),
                     owner, owner, r.getProgram().getId(), r.getTargetKind()));
@@ -349,7 +419,7 @@ public class PlanService {
         Map<String, Object> after = summary(copy);
         after.put("fromDraft", draft.getId());
         audit.record("publish", "plan", copy.getId(), before, after);
-        return view(Optional.of(copy), "published", null, null, null);
+        return view(Optional.of(copy), "published", null, null, null, siteByTelescope(), false);
     }
 
     @Transactional(readOnly = true)

@@ -241,6 +241,19 @@ class PlannerRunApiTest {
         Answer again = api.get("/api/plans/published", STUDENT);
         assertThat(again.status()).isEqualTo(200);
         assertThat(again.id("$.revision")).isEqualTo(published.id("$.revision"));
+        // The published view is kept between reads and narrowed for each reader: a requester sees only their own
+        // name, a coordinator every owner's; nights and site narrow the visits.
+        assertThat(api.get("/api/plans/published", COORD).<List<String>>json("$.visits[*].owner"))
+                .contains("runstudent", "runother");
+        assertThat(again.<List<String>>json("$.visits[*].owner")).contains("runstudent").doesNotContain("runother");
+        assertThat(api.get("/api/plans/published", OTHER).<List<String>>json("$.visits[*].owner"))
+                .contains("runother").doesNotContain("runstudent");
+        assertThat(api.get("/api/plans/published?siteId=999999", COORD).<List<Object>>json("$.visits")).isEmpty();
+        assertThat(api.get("/api/plans/published?siteId=" + network.siteId, COORD).<List<Object>>json("$.visits"))
+                .hasSameSizeAs(again.<List<Object>>json("$.visits"));
+        String lastNight = PlanningNetwork.LAST_NIGHT;
+        assertThat(api.get("/api/plans/published?from=" + lastNight + "&to=" + lastNight, COORD)
+                .<List<String>>json("$.visits[*].night")).containsOnly(lastNight);
 
         Answer same = api.get("/api/plans/compare", COORD);
         assertThat(same.<List<Object>>json("$.placed")).isEmpty();
