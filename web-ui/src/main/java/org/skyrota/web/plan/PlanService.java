@@ -109,18 +109,28 @@ public class PlanService {
         // The count is taken before the rows are read: a change committed meanwhile makes the next reader rebuild.
         long count = publishedInputChanges();
         PublishedSnapshot kept = publishedSnapshot.get();
-        if (kept == null || kept.changeCount() != count
-                || System.nanoTime() - kept.builtAtNanos() > PUBLISHED_VIEW_MAX_AGE.toNanos()) {
-            long builtAt = System.nanoTime();
-            kept = readOnly.execute(status -> {
-                Map<Long, Long> siteOf = siteByTelescope();
-                PlanView full = view(revisions.findFirstByStateOrderByIdDesc(PlanRevision.State.PUBLISHED), "published",
-                        null, null, null, siteOf, true);
-                return new PublishedSnapshot(count, builtAt, full, Map.copyOf(siteOf));
-            });
-            publishedSnapshot.set(kept);
+        if (!current(kept, count)) {
+            // One reader rebuilds; the others that found it stale at the same moment wait and take its view.
+            synchronized (publishedSnapshot) {
+                kept = publishedSnapshot.get();
+                if (!current(kept, count)) {
+                    long builtAt = System.nanoTime();
+                    kept = readOnly.execute(status -> {
+                        Map<Long, Long> siteOf = siteByTelescope();
+                        PlanView full = view(revisions.findFirstByStateOrderByIdDesc(PlanRevision.State.PUBLISHED),
+                                "published", null, null, null, siteOf, true);
+                        return new PublishedSnapshot(count, builtAt, full, Map.copyOf(siteOf));
+                    });
+                    publishedSnapshot.set(kept);
+                }
+            }
         }
         return narrowed(kept, from, to, siteId, CurrentUser.get());
+    }
+
+    private static boolean current(PublishedSnapshot kept, long count) {
+        return kept != null && kept.changeCount() >= count
+                && System.nanoTime() - kept.builtAtNanos() <= PUBLISHED_VIEW_MAX_AGE.toNanos();
     }
 
     private long publishedInputChanges() {
