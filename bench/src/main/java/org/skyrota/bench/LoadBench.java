@@ -49,8 +49,13 @@ public final class LoadBench {
     private static final Pattern ID = Pattern.compile("\"id\"\\s*:\\s*(\\d+)");
     private static final Pattern COOKIE = Pattern.compile("^([^=;]+)=([^;]*)");
     private static final AtomicLong CALLS = new AtomicLong();
-    private static int submitShare = 20;
-    private static int queueShare = 70;
+
+    /** Percentages of the calls that submit a request and that read the queue; the rest read the published plan. */
+    record Mix(int submissions, int queueReads) {
+        int planReads() {
+            return 100 - submissions - queueReads;
+        }
+    }
 
     public static void main(String[] args) throws Exception {
         Map<String, String> opts = options(args);
@@ -63,9 +68,8 @@ public final class LoadBench {
         // sends that many calls a second on a fixed schedule, as a person or a script with think time does.
         double pace = Double.parseDouble(opts.getOrDefault("pace", "0"));
         // Percentages of submissions and queue reads; the rest are plan reads. Other mixes isolate one kind of call.
-        String[] mix = opts.getOrDefault("mix", "20,50").split(",");
-        submitShare = Integer.parseInt(mix[0].trim());
-        queueShare = submitShare + Integer.parseInt(mix[1].trim());
+        String[] shares = opts.getOrDefault("mix", "20,50").split(",");
+        Mix mix = new Mix(Integer.parseInt(shares[0].trim()), Integer.parseInt(shares[1].trim()));
         Path jar = Path.of(opts.getOrDefault("jar", "web-ui/target/skyrota.jar"));
         if (!Files.isRegularFile(jar)) {
             throw new IllegalStateException("no server jar at " + jar.toAbsolutePath() + "; build it with mvn -pl web-ui -am package");
@@ -117,10 +121,10 @@ public final class LoadBench {
             }, "load-trace");
             trace.setDaemon(true);
             trace.start();
-            phase(pool, setup, clients, warmupSeconds, pace, acknowledged, null);
+            phase(pool, setup, clients, warmupSeconds, pace, mix, acknowledged, null);
             Stats stats = new Stats();
             long start = System.nanoTime();
-            phase(pool, setup, clients, seconds, pace, acknowledged, stats);
+            phase(pool, setup, clients, seconds, pace, mix, acknowledged, stats);
             double elapsed = (System.nanoTime() - start) / 1e9;
 
             long lost = verify(pool, setup, acknowledged);
@@ -132,8 +136,8 @@ public final class LoadBench {
                             + " submissions=%d acknowledged=%d pacePerClient=%s mix=%d,%d,%d warmupSeconds=%d%n",
                     latencies.length / elapsed, percentile(latencies, 0.50) / 1e6, percentile(latencies, 0.99) / 1e6,
                     stats.errors.get(), lost, clients, seconds, stats.submissions.get(), acknowledged.size(),
-                    pace > 0 ? String.format(Locale.ROOT, "%.1f", pace) : "closed-loop", submitShare,
-                    queueShare - submitShare, 100 - queueShare, warmupSeconds);
+                    pace > 0 ? String.format(Locale.ROOT, "%.1f", pace) : "closed-loop", mix.submissions(),
+                    mix.queueReads(), mix.planReads(), warmupSeconds);
         } finally {
             pool.shutdownNow();
             server.destroy();
@@ -285,7 +289,7 @@ public final class LoadBench {
     }
 
     /** Every client runs the mix for {@code seconds}; with {@code stats} null nothing is counted (warm-up). */
-    private static void phase(ExecutorService pool, Setup setup, int clients, int seconds, double pace,
+    private static void phase(ExecutorService pool, Setup setup, int clients, int seconds, double pace, Mix mix,
                               ConcurrentLinkedQueue<long[]> acknowledged, Stats stats) throws Exception {
         long intervalNanos = pace > 0 ? Math.round(1e9 / pace) : 0;
         long phaseStart = System.nanoTime();
@@ -328,7 +332,7 @@ public final class LoadBench {
                     String name = null;
                     try {
                         HttpResponse<String> r;
-                        if (pick < submitShare) {
+                        if (pick < mix.submissions()) {
                             name = "NGC " + random.nextInt(1, 7841) + " " + client.username + "-" + random.nextInt(1 << 30);
                             String body = "{\"programId\":" + setup.programId + ",\"targetName\":\"" + name + "\",\"ra\":"
                                     + random.nextInt(0, 36000) / 100.0 + ",\"dec\":" + (random.nextInt(0, 17000) / 100.0 - 85)
@@ -345,7 +349,7 @@ public final class LoadBench {
                             if (stats != null) {
                                 stats.submissions.incrementAndGet();
                             }
-                        } else if (pick < queueShare) {
+                        } else if (pick < mix.submissions() + mix.queueReads()) {
                             r = client.send(setup.http, client.request(setup.base, "/api/requests?size=20&page=" + random.nextInt(3)).GET().build());
                             ok = r.statusCode() == 200;
                             if (stats != null) {

@@ -94,8 +94,9 @@ public class PlanService {
 
     @Transactional(readOnly = true)
     public PlanView draft(LocalDate from, LocalDate to, Long siteId) {
-        return view(revisions.findFirstByStateOrderByIdDesc(PlanRevision.State.DRAFT), "draft", from, to, siteId,
-                siteByTelescope(), false);
+        Map<Long, Long> siteOf = siteByTelescope();
+        return narrowed(view(revisions.findFirstByStateOrderByIdDesc(PlanRevision.State.DRAFT), "draft", siteOf), siteOf,
+                from, to, siteId, CurrentUser.get());
     }
 
     /**
@@ -118,14 +119,14 @@ public class PlanService {
                     kept = readOnly.execute(status -> {
                         Map<Long, Long> siteOf = siteByTelescope();
                         PlanView full = view(revisions.findFirstByStateOrderByIdDesc(PlanRevision.State.PUBLISHED),
-                                "published", null, null, null, siteOf, true);
+                                "published", siteOf);
                         return new PublishedSnapshot(count, builtAt, full, Map.copyOf(siteOf));
                     });
                     publishedSnapshot.set(kept);
                 }
             }
         }
-        return narrowed(kept, from, to, siteId, CurrentUser.get());
+        return narrowed(kept.full(), kept.siteOf(), from, to, siteId, CurrentUser.get());
     }
 
     private static boolean current(PublishedSnapshot kept, long count) {
@@ -139,9 +140,9 @@ public class PlanService {
                 + changes.updatedOrDeleted(Telescope.class);
     }
 
-    /** {@code full} (built with every owner named) narrowed to nights and a site, with only the names this user may see. */
-    private static PlanView narrowed(PublishedSnapshot kept, LocalDate from, LocalDate to, Long siteId, CurrentUser user) {
-        PlanView full = kept.full();
+    /** {@code full} narrowed to nights and a site, naming only the owners {@code user} may see. */
+    private static PlanView narrowed(PlanView full, Map<Long, Long> siteOf, LocalDate from, LocalDate to, Long siteId,
+                                     CurrentUser user) {
         if (full.revision() == null) {
             return new PlanView(null, null, full.state(), from, to, null, null, List.of(), List.of(), List.of());
         }
@@ -157,7 +158,7 @@ public class PlanService {
         }
         List<NightView> nights = full.closedNights().stream()
                 .filter(n -> inRange(n.night(), from, to))
-                .filter(n -> siteId == null || siteId.equals(kept.siteOf().get(n.telescopeId())))
+                .filter(n -> siteId == null || siteId.equals(siteOf.get(n.telescopeId())))
                 .toList();
         return new PlanView(full.revision(), full.version(), full.state(), full.firstNight(), full.lastNight(),
                 full.publishedAt(), full.score(), visits, full.unplaced(), nights);
@@ -171,14 +172,12 @@ public class PlanService {
         return rev;
     }
 
-    /** With {@code everyOwner} every visit names its owner, else only those the signed-in user may see. */
-    private PlanView view(Optional<PlanRevision> found, String kind, LocalDate from, LocalDate to, Long siteId,
-                          Map<Long, Long> siteOf, boolean everyOwner) {
+    /** Every visit of the revision, each naming its owner; {@link #narrowed} fits it to a reader. */
+    private PlanView view(Optional<PlanRevision> found, String kind, Map<Long, Long> siteOf) {
         if (found.isEmpty()) {
-            return new PlanView(null, null, kind, from, to, null, null, List.of(), List.of(), List.of());
+            return new PlanView(null, null, kind, null, null, null, null, List.of(), List.of(), List.of());
         }
         PlanRevision rev = found.get();
-        CurrentUser user = everyOwner ? null : CurrentUser.get();
         Map<Long, ObservingRequest> byId = requestsOf(rev.getVisits());
         List<VisitView> visits = new ArrayList<>();
         List<UnplacedView> unplaced = new ArrayList<>();
@@ -192,18 +191,12 @@ public class PlanService {
                 continue;
             }
             Long site = siteOf.get(v.getTelescopeId());
-            if (!inRange(v.getNight(), from, to) || (siteId != null && !siteId.equals(site))) {
-                continue;
-            }
-            String owner = everyOwner || user.reviewer() || user.username().equals(r.getOwner()) ? r.getOwner() : null;
             visits.add(new VisitView(v.key().toString(), v.getRequestId(), r.getTargetName(), r.getRaDeg(), r.getDecDeg(),
                     v.getTelescopeId(), site == null ? 0 : site, v.getNight(), v.getStart(), v.getEnd(), v.isPinned(),
-                    owner, owner, r.getProgram().getId(), r.getTargetKind()));
+                    r.getOwner(), r.getOwner(), r.getProgram().getId(), r.getTargetKind()));
         }
         visits.sort(Comparator.comparing(VisitView::start).thenComparing(VisitView::telescopeId));
         List<NightView> nights = rev.getNights().stream()
-                .filter(n -> inRange(n.getNight(), from, to))
-                .filter(n -> siteId == null || siteId.equals(siteOf.get(n.getTelescopeId())))
                 .map(n -> new NightView(n.getTelescopeId(), n.getNight(), n.getState().name().toLowerCase(), n.getReason()))
                 .toList();
         return new PlanView(rev.getId(), rev.getVersion(), rev.getState().name().toLowerCase(), rev.getFirstNight(),
@@ -429,7 +422,8 @@ public class PlanService {
         Map<String, Object> after = summary(copy);
         after.put("fromDraft", draft.getId());
         audit.record("publish", "plan", copy.getId(), before, after);
-        return view(Optional.of(copy), "published", null, null, null, siteByTelescope(), false);
+        Map<Long, Long> siteOf = siteByTelescope();
+        return narrowed(view(Optional.of(copy), "published", siteOf), siteOf, null, null, null, CurrentUser.get());
     }
 
     @Transactional(readOnly = true)
