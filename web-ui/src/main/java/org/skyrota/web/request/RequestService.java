@@ -4,8 +4,6 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
 
-import jakarta.persistence.criteria.Predicate;
-
 import org.skyrota.web.account.CurrentUser;
 import org.skyrota.web.plugin.TargetKinds;
 import org.skyrota.web.program.Program;
@@ -17,7 +15,6 @@ import org.skyrota.web.system.InvalidParametersException;
 import org.skyrota.web.system.NotFoundException;
 import org.skyrota.web.system.PageView;
 import org.springframework.data.domain.Pageable;
-import org.springframework.data.jpa.domain.Specification;
 import org.springframework.stereotype.Service;
 import org.springframework.transaction.annotation.Transactional;
 
@@ -33,9 +30,11 @@ public class RequestService {
     private final ProgramRepository programs;
     private final AuditLog audit;
     private final TargetKinds targetKinds;
+    private final RequestListing listing;
 
     RequestService(ObservingRequestRepository requests, ProgramRepository programs, AuditLog audit,
-                   TargetKinds targetKinds) {
+                   TargetKinds targetKinds, RequestListing listing) {
+        this.listing = listing;
         this.audit = audit;
         this.targetKinds = targetKinds;
         this.requests = requests;
@@ -54,26 +53,7 @@ public class RequestService {
         // A requester sees their own requests only, whatever they filter by.
         Filter filter = user.reviewer() ? asked
                 : new Filter(asked.state(), user.username(), asked.programId(), asked.target(), asked.priority());
-        Specification<ObservingRequest> spec = (root, query, cb) -> {
-            List<Predicate> where = new ArrayList<>();
-            if (filter.state() != null) {
-                where.add(cb.equal(root.get("state"), filter.state()));
-            }
-            if (filter.owner() != null && !filter.owner().isBlank()) {
-                where.add(cb.equal(root.get("owner"), filter.owner().trim()));
-            }
-            if (filter.programId() != null) {
-                where.add(cb.equal(root.get("program").get("id"), filter.programId()));
-            }
-            if (filter.priority() != null) {
-                where.add(cb.equal(root.get("priority"), filter.priority()));
-            }
-            if (filter.target() != null && !filter.target().isBlank()) {
-                where.add(cb.like(cb.lower(root.get("targetName")), "%" + filter.target().trim().toLowerCase() + "%"));
-            }
-            return cb.and(where.toArray(Predicate[]::new));
-        };
-        return PageView.of(requests.findAll(spec, pageable), RequestView::of);
+        return listing.page(filter, pageable);
     }
 
     /** The stored request, when the signed-in user may see it (else 404, as for {@link #get}). */

@@ -12,6 +12,8 @@ import static org.springframework.test.web.servlet.result.MockMvcResultMatchers.
 import static org.springframework.test.web.servlet.result.MockMvcResultMatchers.jsonPath;
 import static org.springframework.test.web.servlet.result.MockMvcResultMatchers.status;
 
+import java.util.List;
+
 import com.jayway.jsonpath.JsonPath;
 
 import org.junit.jupiter.api.AfterEach;
@@ -236,6 +238,46 @@ class RequestApiTest {
                 .andExpect(jsonPath("$.items[*].targetName").value(contains("M 31", "NGC 1976")));
         mvc.perform(get("/api/requests?priority=6")).andExpect(status().isBadRequest()).andExpect(jsonPath("$.parameter").value("priority"));
         mvc.perform(get("/api/requests?priority=high")).andExpect(status().isBadRequest()).andExpect(jsonPath("$.parameter").value("priority"));
+    }
+
+    /**
+     * The listing reads rows with SQL of its own, the single read goes through the entity mapping: both must show
+     * every field alike, nulls, exposure order, target parameters and timestamps included.
+     */
+    @Test
+    void aListedRequestReadsExactlyAsTheRequestAlone() throws Exception {
+        long full = id(create("/api/requests", request("83.82", "-5.39", 4)));
+        long bare = id(create("/api/requests", """
+                {"programId":%d,"owner":"student","targetName":"M 42 'bare'","ra":83.8,"dec":-5.4,
+                 "exposures":[{"filter":"Ha","seconds":300,"count":3},{"filter":"B","seconds":30,"count":1},{"filter":"V","seconds":20,"count":2}],
+                 "priority":1}""".formatted(programId)));
+        long planet = id(create("/api/requests", """
+                {"programId":%d,"owner":"student2","targetName":"Jupiter","targetKind":"planet","targetParameters":{"body":"jupiter"},
+                 "exposures":[{"filter":"R","seconds":1.5,"count":40}],"minAltitudeDeg":25,"darkness":"nautical",
+                 "minMoonSeparationDeg":20,"priority":5}""".formatted(programId)));
+        action(full, "submit", 0).andExpect(status().isOk());
+        mvc.perform(post("/api/requests/" + full + "/reject?version=1").contentType(MediaType.APPLICATION_JSON)
+                .content("{\"reason\":\"Below 30° from every site\"}")).andExpect(status().isOk());
+
+        String listing = mvc.perform(get("/api/requests?size=10&sort=priority,desc")).andExpect(status().isOk())
+                .andExpect(jsonPath("$.totalItems").value(3))
+                .andExpect(jsonPath("$.items[*].id").value(contains((int) planet, (int) full, (int) bare)))
+                .andReturn().getResponse().getContentAsString();
+        for (long id : new long[] {full, bare, planet}) {
+            Object listed = JsonPath.read(listing, "$.items[?(@.id == " + id + ")]");
+            String alone = mvc.perform(get("/api/requests/" + id)).andExpect(status().isOk()).andReturn().getResponse().getContentAsString();
+            assertThat(listed).as("request %d listed vs read alone", id).isEqualTo(JsonPath.read("[" + alone + "]", "$"));
+        }
+        assertThat(JsonPath.<String>read(listing, "$.items[1].rejectionReason")).isEqualTo("Below 30° from every site");
+        assertThat(JsonPath.<List<String>>read(listing, "$.items[2].exposures[*].filter")).containsExactly("Ha", "B", "V");
+        assertThat(JsonPath.<String>read(listing, "$.items[0].targetParameters.body")).isEqualTo("jupiter");
+        // Pages split a sort key's ties by id, so that paging through never repeats or skips a request.
+        String first = mvc.perform(get("/api/requests?size=2&page=0&sort=owner")).andReturn().getResponse().getContentAsString();
+        String second = mvc.perform(get("/api/requests?size=2&page=1&sort=owner")).andReturn().getResponse().getContentAsString();
+        assertThat(JsonPath.<List<Integer>>read(first, "$.items[*].id")).containsExactly((int) full, (int) bare);
+        assertThat(JsonPath.<List<Integer>>read(second, "$.items[*].id")).containsExactly((int) planet);
+        assertThat(JsonPath.<Integer>read(second, "$.totalPages")).isEqualTo(2);
+        refused(mvc.perform(get("/api/requests?sort=colour")), "sort");
     }
 
     @Test
