@@ -28,6 +28,7 @@ import java.util.concurrent.Executors;
 import java.util.concurrent.Future;
 import java.util.concurrent.TimeUnit;
 import java.util.concurrent.atomic.AtomicLong;
+import java.util.concurrent.atomic.AtomicLongArray;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 
@@ -38,11 +39,18 @@ import java.util.regex.Pattern;
  * call), so that bcrypt runs once per client instead of on every call as HTTP Basic would. The mix: 20% request
  * submissions ({@code POST /api/requests}), 50% queue reads ({@code GET /api/requests?page=}), 30% reads of the
  * published plan ({@code GET /api/plans/published}), published beforehand from a short planner run. A warm-up
- * ({@code --warmup}, 30 s by default; the same mix, not counted) comes first. Afterwards every acknowledged submission, warm-up ones included, is read
- * back by id; {@code lost} counts those missing or changed. {@code errors} counts answers other than 2xx and calls
- * that got no answer. With {@code --pace=N} each client sends N calls a second on a fixed schedule instead of
- * one after another, and a call's latency counts from when it was due. {@code --mix=S,Q} sets the percentages of
- * submissions and queue reads (the rest are plan reads), to measure one kind of call alone.
+ * ({@code --warmup}, 60 s by default; the same mix, not counted) comes first: on two cores the server's JIT
+ * compiler is still busy after a minute, and a shorter warm-up measures the compiler more than the server.
+ * Afterwards every acknowledged submission, warm-up ones included, is read back by id; {@code lost} counts those
+ * missing or changed. {@code errors} counts answers other than 2xx and calls that got no answer.
+ *
+ * <p>Each client sends {@code --pace} calls a second (5 by default, 500 a second from 100 clients) on a fixed
+ * schedule, and a call's latency counts from when it was due, so that a server that falls behind cannot hide its
+ * queue by slowing the clients down. {@code --pace=0} sends each call as soon as the last is answered instead: that
+ * measures how many calls a second the server can answer, but then the latency is the clients' queue (100 calls
+ * always in flight at R calls a second wait 100/R s on average, Little's law). {@code --mix=S,Q} sets the
+ * percentages of submissions and queue reads (the rest are plan reads), to measure one kind of call alone. Stderr
+ * traces the calls a second every 10 s and, at the end, the slowest call of each measured second.
  */
 public final class LoadBench {
 
@@ -63,10 +71,10 @@ public final class LoadBench {
         int seconds = Integer.parseInt(opts.getOrDefault("seconds", "60"));
         // The server's JIT compiler shares the two cores with the load and takes about a minute to settle (the trace
         // on stderr shows it), so the default warm-up is 30 s; the BENCH line says which was used.
-        int warmupSeconds = Integer.parseInt(opts.getOrDefault("warmup", "30"));
+        int warmupSeconds = Integer.parseInt(opts.getOrDefault("warmup", "60"));
         // 0: closed loop, every client sends its next call as soon as the last is answered. Above 0: each client
         // sends that many calls a second on a fixed schedule, as a person or a script with think time does.
-        double pace = Double.parseDouble(opts.getOrDefault("pace", "0"));
+        double pace = Double.parseDouble(opts.getOrDefault("pace", "5"));
         // Percentages of submissions and queue reads; the rest are plan reads. Other mixes isolate one kind of call.
         String[] shares = opts.getOrDefault("mix", "20,50").split(",");
         Mix mix = new Mix(Integer.parseInt(shares[0].trim()), Integer.parseInt(shares[1].trim()));
@@ -122,7 +130,7 @@ public final class LoadBench {
             trace.setDaemon(true);
             trace.start();
             phase(pool, setup, clients, warmupSeconds, pace, mix, acknowledged, null);
-            Stats stats = new Stats();
+            Stats stats = new Stats(seconds);
             long start = System.nanoTime();
             phase(pool, setup, clients, seconds, pace, mix, acknowledged, stats);
             double elapsed = (System.nanoTime() - start) / 1e9;
@@ -132,6 +140,11 @@ public final class LoadBench {
             Arrays.sort(latencies);
             System.err.printf(Locale.ROOT, "load: %d calls (%d submissions, %d queue reads, %d plan reads), %d acknowledged submissions checked%n",
                     latencies.length, stats.submissions.get(), stats.queueReads.get(), stats.planReads.get(), acknowledged.size());
+            StringBuilder slowest = new StringBuilder();
+            for (int i = 0; i < seconds; i++) {
+                slowest.append(' ').append(stats.slowestPerSecond.get(i) / 1_000_000);
+            }
+            System.err.println("load: slowest call of each second, ms:" + slowest);
             System.out.printf(Locale.ROOT, "BENCH load requestsPerSecond=%.1f p50Ms=%.2f p99Ms=%.2f errors=%d lost=%d clients=%d seconds=%d"
                             + " submissions=%d acknowledged=%d pacePerClient=%s mix=%d,%d,%d warmupSeconds=%d%n",
                     latencies.length / elapsed, percentile(latencies, 0.50) / 1e6, percentile(latencies, 0.99) / 1e6,
@@ -275,6 +288,18 @@ public final class LoadBench {
         final AtomicLong queueReads = new AtomicLong();
         final AtomicLong planReads = new AtomicLong();
         final ConcurrentLinkedQueue<long[]> perClient = new ConcurrentLinkedQueue<>();
+        /** The slowest call that ended in each second of the phase, nanoseconds: shows whether slow calls come in bursts. */
+        final AtomicLongArray slowestPerSecond;
+        final long startNanos = System.nanoTime();
+
+        Stats(int seconds) {
+            slowestPerSecond = new AtomicLongArray(seconds + 5);
+        }
+
+        void ended(long took) {
+            int second = (int) Math.min(slowestPerSecond.length() - 1, (System.nanoTime() - startNanos) / 1_000_000_000L);
+            slowestPerSecond.accumulateAndGet(second, took, Math::max);
+        }
 
         long[] latencies() {
             int n = perClient.stream().mapToInt(a -> (int) a[0]).sum();
@@ -387,6 +412,7 @@ public final class LoadBench {
                             lat = Arrays.copyOf(lat, lat.length * 2);
                         }
                         lat[n++] = took;
+                        stats.ended(took);
                     }
                 }
                 if (stats != null) {
