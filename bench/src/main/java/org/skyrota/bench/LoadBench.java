@@ -70,7 +70,7 @@ public final class LoadBench {
         int clients = Integer.parseInt(opts.getOrDefault("clients", "100"));
         int seconds = Integer.parseInt(opts.getOrDefault("seconds", "60"));
         // The server's JIT compiler shares the two cores with the load and takes about a minute to settle (the trace
-        // on stderr shows it), so the default warm-up is 30 s; the BENCH line says which was used.
+        // on stderr shows it), so the default warm-up is 60 s; the BENCH line says which was used.
         int warmupSeconds = Integer.parseInt(opts.getOrDefault("warmup", "60"));
         // 0: closed loop, every client sends its next call as soon as the last is answered. Above 0: each client
         // sends that many calls a second on a fixed schedule, as a person or a script with think time does.

@@ -53,23 +53,20 @@ class RequestListing {
         this.jdbc = jdbc;
     }
 
-    /** One page of the requests that match every non-null member of {@code filter}. */
+    /** One page of the requests that match every non-null member of {@code filter}; the page is always paged. */
     PageView<RequestView> page(RequestService.Filter filter, Pageable pageable) {
         String order = orderBy(pageable.getSort());
         MapSqlParameterSource args = new MapSqlParameterSource();
         String where = where(filter, args);
         long total = jdbc.queryForObject("select count(*) from observing_request" + where, args, Long.class);
-        List<Row> rows = List.of();
-        if (pageable.isUnpaged() || pageable.getOffset() < total) {
-            String page = pageable.isPaged()
-                    ? " offset " + pageable.getOffset() + " rows fetch next " + pageable.getPageSize() + " rows only" : "";
-            rows = jdbc.query("select " + COLUMNS + " from observing_request" + where + order + page, args, RequestListing::row);
+        List<RequestView> items = List.of();
+        if (pageable.getOffset() < total) {
+            String page = " offset " + pageable.getOffset() + " rows fetch next " + pageable.getPageSize() + " rows only";
+            items = withPlansAndParameters(jdbc.query("select " + COLUMNS + " from observing_request" + where + order + page,
+                    args, RequestListing::view));
         }
-        List<RequestView> items = views(rows);
-        int size = pageable.isPaged() ? pageable.getPageSize() : items.size();
-        int number = pageable.isPaged() ? pageable.getPageNumber() : 0;
-        int pages = size == 0 ? 1 : (int) ((total + size - 1) / size);
-        return new PageView<>(items, number, size, total, pages);
+        int size = pageable.getPageSize();
+        return new PageView<>(items, pageable.getPageNumber(), size, total, (int) ((total + size - 1) / size));
     }
 
     private static String where(RequestService.Filter filter, MapSqlParameterSource args) {
@@ -100,65 +97,53 @@ class RequestListing {
     /** The asked order, then the id, so that pages never share or skip a request when sort keys tie. */
     private static String orderBy(Sort sort) {
         List<String> keys = new ArrayList<>();
+        boolean byId = false;
         for (Sort.Order o : sort) {
             String column = SORTABLE.get(o.getProperty());
             if (column == null) {
                 throw new InvalidParametersException(List.of(new FieldProblem("sort", "cannot sort by '" + o.getProperty() + "'")));
             }
+            byId |= column.equals("id");
             keys.add((o.isIgnoreCase() ? "lower(" + column + ")" : column) + (o.isAscending() ? " asc" : " desc"));
         }
-        if (keys.stream().noneMatch(k -> k.startsWith("id "))) {
+        if (!byId) {
             keys.add("id asc");
         }
         return " order by " + String.join(", ", keys);
     }
 
-    /** The rows with their exposure plans and target parameters, two queries for the whole page. */
-    private List<RequestView> views(List<Row> rows) {
-        if (rows.isEmpty()) {
-            return List.of();
+    /**
+     * Fills in the views' exposure plans and target parameters, two queries for the whole page. The views come from
+     * {@link #view} with empty, growable ones.
+     */
+    private List<RequestView> withPlansAndParameters(List<RequestView> views) {
+        if (views.isEmpty()) { // the rows counted were deleted before the page was read
+            return views;
         }
-        MapSqlParameterSource ids = new MapSqlParameterSource("ids", rows.stream().map(Row::id).toList());
-        Map<Long, List<RequestForm.ExposureForm>> exposures = new HashMap<>();
+        Map<Long, RequestView> byId = new HashMap<>();
+        views.forEach(v -> byId.put(v.id(), v));
+        MapSqlParameterSource ids = new MapSqlParameterSource("ids", byId.keySet());
         jdbc.query("select request_id, filter_name, seconds, exposure_count from request_exposure"
                 + " where request_id in (:ids) order by request_id, seq", ids, rs -> {
-            exposures.computeIfAbsent(rs.getLong(1), k -> new ArrayList<>())
-                    .add(new RequestForm.ExposureForm(rs.getString(2), rs.getDouble(3), rs.getInt(4)));
+            byId.get(rs.getLong(1)).exposures().add(new RequestForm.ExposureForm(rs.getString(2), rs.getDouble(3), rs.getInt(4)));
         });
-        Map<Long, Map<String, String>> parameters = new HashMap<>();
         jdbc.query("select request_id, param_name, param_value from request_target_parameter"
                 + " where request_id in (:ids) order by request_id, param_name", ids, rs -> {
-            parameters.computeIfAbsent(rs.getLong(1), k -> new LinkedHashMap<>()).put(rs.getString(2), rs.getString(3));
+            byId.get(rs.getLong(1)).targetParameters().put(rs.getString(2), rs.getString(3));
         });
-        return rows.stream().map(r -> r.view(exposures.getOrDefault(r.id(), List.of()),
-                parameters.getOrDefault(r.id(), Map.of()))).toList();
+        return views;
     }
 
-    /** The request's own columns, before its plan and parameters are attached. */
-    private record Row(long id, long version, long programId, String owner, String targetName, double raDeg,
-                       double decDeg, double minAltitudeDeg, DarknessLimit darkness, Double minMoonSeparationDeg,
-                       Double maxMoonIllumination, LocalDate earliestNight, LocalDate latestNight, int repeats,
-                       Double repeatIntervalHours, Double repeatToleranceHours, int priority, RequestState state,
-                       String rejectionReason, Instant createdAt, Instant updatedAt, String targetKind) {
-
-        RequestView view(List<RequestForm.ExposureForm> exposures, Map<String, String> parameters) {
-            return new RequestView(id, version, programId, owner, targetName, raDeg, decDeg, List.copyOf(exposures),
-                    minAltitudeDeg, darkness, minMoonSeparationDeg, maxMoonIllumination, earliestNight, latestNight,
-                    repeats, repeatIntervalHours, repeatToleranceHours, priority, state, rejectionReason, createdAt,
-                    updatedAt, targetKind, parameters);
-        }
-    }
-
-    private static Row row(ResultSet rs, int n) throws SQLException {
-        return new Row(rs.getLong("id"), rs.getLong("version"), rs.getLong("program_id"), rs.getString("owner"),
-                rs.getString("target_name"), rs.getDouble("ra_deg"), rs.getDouble("dec_deg"),
+    private static RequestView view(ResultSet rs, int n) throws SQLException {
+        return new RequestView(rs.getLong("id"), rs.getLong("version"), rs.getLong("program_id"), rs.getString("owner"),
+                rs.getString("target_name"), rs.getDouble("ra_deg"), rs.getDouble("dec_deg"), new ArrayList<>(),
                 rs.getDouble("min_altitude_deg"), DarknessLimit.valueOf(rs.getString("darkness")),
                 rs.getObject("min_moon_separation_deg", Double.class), rs.getObject("max_moon_illumination", Double.class),
                 rs.getObject("earliest_night", LocalDate.class), rs.getObject("latest_night", LocalDate.class),
                 rs.getInt("repeats"), rs.getObject("repeat_interval_hours", Double.class),
                 rs.getObject("repeat_tolerance_hours", Double.class), rs.getInt("priority"),
                 RequestState.valueOf(rs.getString("state")), rs.getString("rejection_reason"),
-                instant(rs, "created_at"), instant(rs, "updated_at"), rs.getString("target_kind"));
+                instant(rs, "created_at"), instant(rs, "updated_at"), rs.getString("target_kind"), new LinkedHashMap<>());
     }
 
     private static Instant instant(ResultSet rs, String column) throws SQLException {
