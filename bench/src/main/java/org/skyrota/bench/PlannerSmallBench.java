@@ -17,6 +17,7 @@ import org.skyrota.planning.solver.SolveOptions;
  * optimum of OR-Tools CP-SAT on the same candidates. score and optimum are priority-weighted placed minutes (the
  * medium level); gapToOptimum = (optimum - score) / optimum; seconds is the whole solve call (10 s of search plus
  * scoring and reasons); secondsToWithin1Percent is when the best plan first came within 1% of the optimum.
+ * lpBound is the certified LP bound of planner-term-bound on the same candidates, never below the optimum.
  * Arguments: seed (42), search seconds (10); -Dcpsat.seconds caps the reference (120).
  */
 public final class PlannerSmallBench {
@@ -29,6 +30,9 @@ public final class PlannerSmallBench {
 
         PreparedProblem forExact = planner.prepare(problem, options);
         CpSatReference.Result exact = CpSatReference.maximiseWeightedTime(forExact.schedule(), Double.parseDouble(System.getProperty("cpsat.seconds", "120")));
+
+        // The LP bound that planner-term-bound relies on, checked here against the proven optimum: it must not be lower.
+        double lpBound = PlannerTermBoundBench.certifiedBound(forExact.schedule(), 60).certified();
 
         long start = System.nanoTime();
         double[] within1 = {Double.NaN};
@@ -52,8 +56,10 @@ public final class PlannerSmallBench {
         double gap = exact.objective() == 0 ? 0 : (double) (exact.objective() - score) / exact.objective();
         System.out.println(String.format(Locale.ROOT,
                 "BENCH planner-small score=%d optimum=%d gapToOptimum=%.4f seconds=%.1f hard=%d placed=%d visits=%d"
-                        + " candidates=%d optimumProven=%b cpSatSeconds=%.1f optimumBound=%d secondsToWithin1Percent=%.1f",
+                        + " candidates=%d optimumProven=%b cpSatSeconds=%.1f optimumBound=%d secondsToWithin1Percent=%.1f"
+                        + " lpBound=%.0f",
                 score, exact.objective(), gap, elapsed, -result.score().hardScore(), placed,
-                result.prepared().schedule().visits().size(), forExact.candidateCount(), exact.optimal(), exact.seconds(), exact.bound(), within1[0]));
+                result.prepared().schedule().visits().size(), forExact.candidateCount(), exact.optimal(), exact.seconds(), exact.bound(), within1[0],
+                lpBound));
     }
 }
