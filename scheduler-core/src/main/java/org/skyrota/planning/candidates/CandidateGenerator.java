@@ -248,6 +248,8 @@ public final class CandidateGenerator {
         private final Map<String, VisitStats> stats;
         private final Map<Long, SkyConditions> sampled = new HashMap<>();
         private final Map<String, List<SkyWindow>> windowCache = new HashMap<>();
+        /** Starts of the repeats already observed, planner minutes; no open repeat may start closer to one. */
+        private int[] observedMinutes = new int[0];
 
         RequestCandidates(PlanningProblem problem, Request request, PlacementRegistry registry, int grid, Program program,
                           List<ProgramGrant> grants, Map<String, Assignment> pins, Map<String, Assignment> published,
@@ -310,8 +312,9 @@ public final class CandidateGenerator {
 
             LocalDate from = max(request.earliestNight(), problem.firstNight());
             LocalDate to = min(request.latestNight(), problem.lastNight());
-            long gapMinutes = Math.max(0, request.interval().minus(request.tolerance()).toMinutes());
+            long gapMinutes = request.minimumSpacing().toMinutes();
             long gapDays = gapMinutes / (24 * 60);
+            observedMinutes = request.observedStarts().stream().mapToInt(registry::minuteOf).toArray();
 
             List<Visit> visits = new ArrayList<>();
             for (int k = 0; k < request.repeats(); k++) {
@@ -373,6 +376,9 @@ public final class CandidateGenerator {
                             int first = ceilTo(registry.minuteOf(w.start()) + (w.start().getEpochSecond() % 60 == 0 ? 0 : 1), step);
                             int lastStart = registry.minuteOf(w.end()) - length[t];
                             for (int m = first; m <= lastStart; m += step) {
+                                if (tooCloseToObserved(m, gapMinutes)) {
+                                    continue;
+                                }
                                 SkyConditions c = conditionsAt(s, site, m + length[t] / 2);
                                 if (!request.target().solar()
                                         && c.sunSeparationDeg() < request.limits().minSunSeparationDeg()) {
@@ -396,8 +402,8 @@ public final class CandidateGenerator {
 
             Assignment pin = pins.get(visitId);
             Assignment pub = published.get(visitId);
-            Placement pinPlacement = pin == null ? null : forcedPlacement(pin, length, eligible, costs, true);
-            Placement pubPlacement = pub == null ? null : forcedPlacement(pub, length, eligible, costs, false);
+            Placement pinPlacement = pin == null ? null : forcedPlacement(pin, length, eligible, costs, true, gapMinutes);
+            Placement pubPlacement = pub == null ? null : forcedPlacement(pub, length, eligible, costs, false, gapMinutes);
 
             List<Placement> candidates = new ArrayList<>(costs.keySet());
             candidates.sort(Comparator.comparingInt(Placement::id));
@@ -464,13 +470,27 @@ public final class CandidateGenerator {
          * The placement of a pin or of the published plan. A pin is always accepted as a candidate, flagged with every
          * rule it breaks; a published placement only when it breaks nothing (else the visit is free to move).
          */
+        private boolean tooCloseToObserved(int startMinute, int gapMinutes) {
+            for (int observed : observedMinutes) {
+                if (Math.abs(startMinute - observed) < gapMinutes) {
+                    return true;
+                }
+            }
+            return false;
+        }
+
         private Placement forcedPlacement(Assignment a, int[] length, boolean[] eligible, Map<Placement, int[]> costs,
-                                          boolean pin) {
+                                          boolean pin, int gapMinutes) {
             int t = telescopeIndex(a.telescopeId());
             int start = ceilTo(registry.minuteOf(a.start()), grid);
             Placement p = registry.get(t, start);
             if (costs.containsKey(p)) {
                 return p;
+            }
+            // A published place too close to a repeat observed since is given up; a pin is the coordinator's word and
+            // stays, judged below like any forced place.
+            if (!pin && tooCloseToObserved(start, gapMinutes)) {
+                return null;
             }
             Telescope telescope = registry.telescopes().get(t);
             Site site = registry.sites().get(registry.siteOf(t));

@@ -1,6 +1,7 @@
 package org.skyrota.planning.model;
 
 import java.time.Duration;
+import java.time.Instant;
 import java.time.LocalDate;
 import java.util.List;
 
@@ -19,10 +20,21 @@ import java.util.List;
  * @param interval     least spacing between successive visits (zero when repeats is 1)
  * @param tolerance    how much closer than the interval a repeat may still be
  * @param priority     1 (low) to 5 (high)
+ * @param observedStarts when the repeats already observed were taken: {@code repeats} counts only the open ones,
+ *                       and those keep the spacing from these as from each other
  */
 public record Request(String id, String programId, String owner, Target target, List<ExposureStep> exposures,
                       ObservingLimits limits, LocalDate earliestNight, LocalDate latestNight, int repeats,
-                      Duration interval, Duration tolerance, int priority) {
+                      Duration interval, Duration tolerance, int priority, List<Instant> observedStarts) {
+
+    /** A request none of whose repeats has been observed yet. */
+    public Request(String id, String programId, String owner, Target target, List<ExposureStep> exposures,
+                   ObservingLimits limits, LocalDate earliestNight, LocalDate latestNight, int repeats,
+                   Duration interval, Duration tolerance, int priority) {
+        this(id, programId, owner, target, exposures, limits, earliestNight, latestNight, repeats, interval, tolerance,
+                priority, List.of());
+    }
+
     public Request {
         Checks.notBlank("request id", id);
         Checks.notBlank("programId of request " + id, programId);
@@ -50,6 +62,17 @@ public record Request(String id, String programId, String owner, Target target, 
         if (priority < 1 || priority > 5) {
             throw new IllegalArgumentException("priority of request " + id + " must be 1..5, got " + priority);
         }
+        observedStarts = observedStarts == null ? List.of() : observedStarts;
+        if (observedStarts.stream().anyMatch(java.util.Objects::isNull)) {
+            throw new IllegalArgumentException("observedStarts of request " + id + " must not hold an empty time");
+        }
+        observedStarts = List.copyOf(observedStarts);
+    }
+
+    /** Least start-to-start spacing between two repeats: the interval minus its tolerance, never negative. */
+    public Duration minimumSpacing() {
+        Duration spacing = interval.minus(tolerance);
+        return spacing.isNegative() ? Duration.ZERO : spacing;
     }
 
     /** Shutter-open time of one visit, seconds. */

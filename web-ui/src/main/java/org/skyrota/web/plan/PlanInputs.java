@@ -1,8 +1,8 @@
 package org.skyrota.web.plan;
 
+import java.time.Instant;
 import java.time.LocalDate;
 import java.util.HashMap;
-import java.util.HashSet;
 import java.util.List;
 import java.util.Map;
 import java.util.Set;
@@ -64,12 +64,16 @@ public class PlanInputs {
                 programs.findAll(), accepted, observedRepeats(), first, last, pins, nights, published), targetKinds);
     }
 
-    /** Per request, the repeats a telescope reported as done. */
+    /**
+     * Per request, the repeats a telescope reported as done and when they were observed (the latest report of a repeat
+     * reported twice, the time the open repeats keep their spacing from).
+     */
     @Transactional(readOnly = true, propagation = Propagation.SUPPORTS)
-    public Map<Long, Set<Integer>> observedRepeats() {
-        Map<Long, Set<Integer>> out = new HashMap<>();
+    public Map<Long, Map<Integer, Instant>> observedRepeats() {
+        Map<Long, Map<Integer, Instant>> out = new HashMap<>();
         reports.findAll().stream().filter(r -> r.getOutcome() == org.skyrota.web.report.Outcome.DONE)
-                .forEach(r -> out.computeIfAbsent(r.getRequestId(), k -> new HashSet<>()).add(r.getRepeatNo()));
+                .forEach(r -> out.computeIfAbsent(r.getRequestId(), k -> new HashMap<>())
+                        .merge(r.getRepeatNo(), r.getObservedAt(), (a, b) -> a.isAfter(b) ? a : b));
         return out;
     }
 }

@@ -56,13 +56,13 @@ public final class PlanningMapper {
     /**
      * What the planner is given.
      *
-     * @param observedRepeats per request, the repeat numbers already observed (never planned again)
+     * @param observedRepeats per request, the repeat numbers already observed (never planned again) and when
      * @param pins            visits that must stay where they are (pinned, or on a locked night)
      * @param nights          locked and closed nights
      * @param published       the published plan's placed visits, for stability
      */
     public record Input(List<Site> sites, List<Telescope> telescopes, List<Instrument> instruments, List<Program> programs,
-                        List<ObservingRequest> requests, Map<Long, Set<Integer>> observedRepeats,
+                        List<ObservingRequest> requests, Map<Long, Map<Integer, Instant>> observedRepeats,
                         LocalDate firstNight, LocalDate lastNight, List<PlanVisit> pins, List<PlanNight> nights,
                         List<PlanVisit> published) {}
 
@@ -127,10 +127,10 @@ public final class PlanningMapper {
             if (!programIds.contains(String.valueOf(r.getProgram().getId()))) {
                 continue;
             }
-            Set<Integer> observed = in.observedRepeats().getOrDefault(r.getId(), Set.of());
+            Map<Integer, Instant> observed = in.observedRepeats().getOrDefault(r.getId(), Map.of());
             List<Integer> open = new ArrayList<>();
             for (int n = 1; n <= r.getRepeats(); n++) {
-                if (!observed.contains(n)) {
+                if (!observed.containsKey(n)) {
                     open.add(n);
                 }
             }
@@ -141,7 +141,10 @@ public final class PlanningMapper {
             if (target == null) {
                 continue;
             }
-            Request request = request(r, target, open.size(), in.firstNight(), in.lastNight());
+            List<Instant> observedStarts = observed.entrySet().stream()
+                    .filter(e -> e.getKey() >= 1 && e.getKey() <= r.getRepeats()).map(Map.Entry::getValue).sorted()
+                    .toList();
+            Request request = request(r, target, open.size(), observedStarts, in.firstNight(), in.lastNight());
             requests.add(request);
             for (int i = 0; i < open.size(); i++) {
                 VisitKey key = new VisitKey(r.getId(), open.get(i));
@@ -239,15 +242,21 @@ public final class PlanningMapper {
     }
 
     static Request request(ObservingRequest r, Target target, int openRepeats, LocalDate first, LocalDate last) {
+        return request(r, target, openRepeats, List.of(), first, last);
+    }
+
+    /** @param observedStarts when the repeats already observed were taken: the open ones keep their spacing from them */
+    static Request request(ObservingRequest r, Target target, int openRepeats, List<Instant> observedStarts,
+                           LocalDate first, LocalDate last) {
         ObservingLimits limits = ObservingLimits.dark(r.getMinAltitudeDeg())
                 .withDarkness(darkness(r.getDarkness()))
                 .withMoon(r.getMinMoonSeparationDeg() == null ? 0 : r.getMinMoonSeparationDeg(),
                         r.getMaxMoonIllumination() == null ? 1 : r.getMaxMoonIllumination());
         List<ExposureStep> steps = r.getExposures().stream()
                 .map(e -> new ExposureStep(e.getFilterName(), e.getSeconds(), e.getCount())).toList();
-        // One visit needs no spacing (the planner's Request wants zero then); requests stored before the spacing
-        // fields existed have none either.
-        boolean spaced = openRepeats > 1 && r.getRepeatIntervalHours() != null;
+        // A lone visit with nothing observed before it needs no spacing; requests stored before the spacing fields
+        // existed have none either.
+        boolean spaced = (openRepeats > 1 || !observedStarts.isEmpty()) && r.getRepeatIntervalHours() != null;
         Duration interval = spaced ? hours(r.getRepeatIntervalHours()) : Duration.ZERO;
         Duration tolerance = spaced && r.getRepeatToleranceHours() != null ? hours(r.getRepeatToleranceHours()) : Duration.ZERO;
         // Stored priorities count as the planner's do: 1 lowest, 5 highest.
@@ -255,7 +264,7 @@ public final class PlanningMapper {
                 target, steps, limits,
                 r.getEarliestNight() == null ? first : r.getEarliestNight(),
                 r.getLatestNight() == null ? last : r.getLatestNight(),
-                openRepeats, interval, tolerance, r.getPriority());
+                openRepeats, interval, tolerance, r.getPriority(), observedStarts);
     }
 
     /** Whole seconds: the planner's grid is minutes, so finer is never used. */

@@ -3,6 +3,7 @@ package org.skyrota.web.plan;
 import static org.assertj.core.api.Assertions.assertThat;
 
 import java.time.Duration;
+import java.time.Instant;
 import java.time.LocalDate;
 import java.util.List;
 
@@ -62,11 +63,21 @@ class PlanningMapperRequestTest {
     }
 
     @Test
-    void oneOpenVisitOrNoStoredIntervalMeansNoSpacing() {
-        // Two of three repeats observed already: the one left is a single visit, which the planner wants unspaced.
-        Request last = PlanningMapper.request(stored(3, 24.0, 2.0, 3), TARGET, 1, FIRST, LAST);
-        assertThat(last.interval()).isZero();
-        assertThat(last.tolerance()).isZero();
+    void theRepeatLeftOpenKeepsItsSpacingFromTheObservedOnes() {
+        // Two of three repeats observed already: the one left is spaced from when they were taken.
+        List<Instant> observed = List.of(Instant.parse("2027-01-10T03:00:00Z"), Instant.parse("2027-01-11T03:00:00Z"));
+        Request last = PlanningMapper.request(stored(3, 24.0, 2.0, 3), TARGET, 1, observed, FIRST, LAST);
+        assertThat(last.repeats()).isEqualTo(1);
+        assertThat(last.interval()).isEqualTo(Duration.ofHours(24));
+        assertThat(last.tolerance()).isEqualTo(Duration.ofHours(2));
+        assertThat(last.observedStarts()).containsExactlyElementsOf(observed);
+    }
+
+    @Test
+    void oneVisitWithNothingObservedOrNoStoredIntervalMeansNoSpacing() {
+        Request single = PlanningMapper.request(stored(1, 24.0, 2.0, 3), TARGET, 1, FIRST, LAST);
+        assertThat(single.interval()).isZero();
+        assertThat(single.tolerance()).isZero();
         // A request stored before the spacing fields existed.
         Request old = PlanningMapper.request(stored(2, null, null, 3), TARGET, 2, FIRST, LAST);
         assertThat(old.interval()).isZero();

@@ -1,0 +1,104 @@
+package org.skyrota.planning.candidates;
+
+import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.api.Assertions.assertThatThrownBy;
+
+import java.time.Duration;
+import java.time.Instant;
+import java.time.LocalDate;
+import java.time.ZoneOffset;
+import java.util.Arrays;
+import java.util.List;
+import java.util.Map;
+import java.util.Set;
+
+import org.junit.jupiter.api.Test;
+import org.skyrota.planning.domain.PlannerWeights;
+import org.skyrota.planning.domain.Visit;
+import org.skyrota.planning.model.Assignment;
+import org.skyrota.planning.model.ExposureStep;
+import org.skyrota.planning.model.Instrument;
+import org.skyrota.planning.model.MountKind;
+import org.skyrota.planning.model.ObservingLimits;
+import org.skyrota.planning.model.PlanningProblem;
+import org.skyrota.planning.model.Program;
+import org.skyrota.planning.model.Request;
+import org.skyrota.planning.model.Site;
+import org.skyrota.planning.model.Target;
+import org.skyrota.planning.model.Telescope;
+import org.skyrota.planning.sky.SyntheticSky;
+
+/**
+ * A repeat left open keeps its spacing from the repeats already observed, as repeats keep it from each other. On the
+ * synthetic sky (dark 20:00 to 05:00 local) a target at RA 165° culminates at 23:00 local and is up ±3 h.
+ */
+class ObservedRepeatSpacingTest {
+    private static final LocalDate NIGHT = LocalDate.of(2027, 3, 1);
+    private static final Site SITE = Site.of("hill", "Hill Station (invented)", 40, -105, 1600, "America/Denver", 21.5);
+    private static final Telescope SCOPE = new Telescope("hill-a", "hill", 0.4, MountKind.EQUATORIAL, 5, 0, 10, 90);
+    /** 23:00 local (UTC−7 before the change to daylight time) on the first night: when repeat 1 was observed. */
+    private static final Instant OBSERVED = NIGHT.plusDays(1).atTime(6, 0).toInstant(ZoneOffset.UTC);
+    private static final Duration INTERVAL = Duration.ofDays(2);
+    private static final Duration TOLERANCE = Duration.ofHours(6);
+
+    @Test
+    void noCandidateOfTheOpenRepeatStartsCloserToTheObservedOneThanTheIntervalLessItsTolerance() {
+        PreparedProblem without = prepare(request(List.of()), List.of(), List.of());
+        PreparedProblem with = prepare(request(List.of(OBSERVED)), List.of(), List.of());
+        Visit free = without.schedule().visits().get(0);
+        Visit spaced = with.schedule().visits().get(0);
+
+        Instant earliestAllowed = OBSERVED.plus(INTERVAL.minus(TOLERANCE));
+        assertThat(starts(without, free)).anyMatch(s -> s.isBefore(earliestAllowed));
+        assertThat(starts(with, spaced)).isNotEmpty().allMatch(s -> !s.isBefore(earliestAllowed));
+        // Only the nights too close are lost: from the third night on, the candidates are the same.
+        assertThat(starts(with, spaced)).containsExactlyElementsOf(
+                starts(without, free).stream().filter(s -> !s.isBefore(earliestAllowed)).toList());
+    }
+
+    @Test
+    void aPublishedPlaceTooCloseIsGivenUpButAPinStays() {
+        // A start the visit could take if nothing had been observed, a night after the observed repeat.
+        PreparedProblem without = prepare(request(List.of()), List.of(), List.of());
+        Visit free = without.schedule().visits().get(0);
+        Instant tooClose = starts(without, free).stream().filter(s -> s.isAfter(OBSERVED.plus(Duration.ofHours(12))))
+                .findFirst().orElseThrow();
+        assertThat(tooClose).isBefore(OBSERVED.plus(INTERVAL.minus(TOLERANCE)));
+        Assignment there = new Assignment("q", "hill-a", tooClose);
+        Visit unspaced = prepare(request(List.of()), List.of(), List.of(there)).schedule().visits().get(0);
+        assertThat(unspaced.hasCandidate(unspaced.getPublished())).isTrue();
+
+        Visit published = prepare(request(List.of(OBSERVED)), List.of(), List.of(there)).schedule().visits().get(0);
+        assertThat(published.getPublished()).isNotNull();
+        assertThat(published.hasCandidate(published.getPublished())).isFalse();
+
+        Visit pinned = prepare(request(List.of(OBSERVED)), List.of(there), List.of()).schedule().visits().get(0);
+        assertThat(pinned.isPinned()).isTrue();
+        assertThat(pinned.isPlaced()).isTrue();
+    }
+
+    @Test
+    void anEmptyObservedTimeIsRefusedByName() {
+        assertThatThrownBy(() -> request(Arrays.asList(OBSERVED, null)))
+                .isInstanceOf(IllegalArgumentException.class).hasMessageContaining("observedStarts of request q");
+    }
+
+    private static Request request(List<Instant> observed) {
+        return new Request("q", "lab", "member", Target.fixed("invented field q", 165, 20),
+                List.of(new ExposureStep("V", 60, 30)), ObservingLimits.dark(30), NIGHT, NIGHT.plusDays(4), 1, INTERVAL,
+                TOLERANCE, 3, observed);
+    }
+
+    private static List<Instant> starts(PreparedProblem prepared, Visit v) {
+        return v.getCandidates().stream().map(p -> prepared.schedule().instantOf(p.startMinute())).sorted().toList();
+    }
+
+    private static PreparedProblem prepare(Request request, List<Assignment> pins, List<Assignment> published) {
+        PlanningProblem problem = new PlanningProblem(List.of(SITE), List.of(SCOPE),
+                List.of(new Instrument("cam", "hill-a", Set.of("V"), 0, 0, false)),
+                List.of(new Program("lab", "Lab (invented)", 100, 1)), List.of(request), List.of(), pins, published,
+                NIGHT, NIGHT.plusDays(4), 5, 5);
+        return new CandidateGenerator(new SyntheticSky(Duration.ofHours(3))).prepare(problem,
+                PlannerWeights.defaults().withOverrides(Map.of()));
+    }
+}
