@@ -119,7 +119,9 @@ public final class PlannerTermBoundBench {
         double[] duals = new double[rows.size()];
         double[] limits = new double[rows.size()];
         for (int i = 0; i < rows.size(); i++) {
-            duals[i] = rows.get(i).dualValue();
+            double dual = rows.get(i).dualValue();
+            // Any non-negative multipliers give a valid bound, so a value the solver failed to give counts as zero.
+            duals[i] = Double.isFinite(dual) ? dual : 0;
             limits[i] = rows.get(i).ub();
         }
         // The sign convention of the duals for a maximisation is the solver's business: both readings give a valid

@@ -28,6 +28,7 @@ public final class SkyrotaConstraints implements ConstraintProvider {
                 outsideVisibilityWindow(factory),
                 instrumentOrFilterMissing(factory),
                 repeatsTooClose(factory),
+                tooCloseToObservedRepeat(factory),
                 closedNight(factory),
                 sunAvoidance(factory),
                 programOverGrant(factory),
@@ -77,6 +78,15 @@ public final class SkyrotaConstraints implements ConstraintProvider {
                 .filter((a, b) -> Math.abs(a.startMinute() - b.startMinute()) < a.repeatMinGapMinutes())
                 .penalizeConfigurableLong((a, b) -> a.repeatMinGapMinutes() - Math.abs(a.startMinute() - b.startMinute()))
                 .asConstraint(RuleNames.REPEATS_TOO_CLOSE);
+    }
+
+    Constraint tooCloseToObservedRepeat(ConstraintFactory factory) {
+        // A repeat observed already is fixed in the past, so it is not a visit here: its spacing was checked against
+        // each candidate beforehand, and only a pin can still break it.
+        return factory.forEach(Visit.class)
+                .filter(v -> v.has(Visit.TOO_CLOSE_TO_OBSERVED))
+                .penalizeConfigurableLong(Visit::placedMinutes)
+                .asConstraint(RuleNames.TOO_CLOSE_TO_OBSERVED);
     }
 
     Constraint closedNight(ConstraintFactory factory) {

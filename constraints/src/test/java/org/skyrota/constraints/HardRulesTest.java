@@ -88,6 +88,23 @@ class HardRulesTest {
     }
 
     @Nested
+    class TooCloseToAnObservedRepeat {
+        @Test
+        void aPinnedVisitTooCloseToAnObservedRepeatIsPenalizedByItsLength() {
+            Visit pinnedTooClose = visit("r#2").request("r", 1320).length(30).flags(Visit.TOO_CLOSE_TO_OBSERVED)
+                    .at(at(0, 600)).pinned().build();
+            verifier.verifyThat(SkyrotaConstraints::tooCloseToObservedRepeat).given(pinnedTooClose).penalizesBy(30);
+        }
+
+        @Test
+        void aVisitWithoutTheFlagAndAnUnplacedOneAreNot() {
+            Visit spaced = visit("r#2").request("r", 1320).length(30).at(at(0, 600)).build();
+            Visit unplaced = visit("r#3").request("r", 1320).length(30).flags(Visit.TOO_CLOSE_TO_OBSERVED).build();
+            verifier.verifyThat(SkyrotaConstraints::tooCloseToObservedRepeat).given(spaced, unplaced).penalizesBy(0);
+        }
+    }
+
+    @Nested
     class ClosedNightRule {
         @Test
         void aVisitOnAClosedTelescopeNightIsPenalizedByItsLength() {

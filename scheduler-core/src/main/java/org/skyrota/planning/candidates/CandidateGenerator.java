@@ -209,7 +209,11 @@ public final class CandidateGenerator {
         }
 
         int minuteOf(Instant instant) {
-            return (int) Math.floorDiv(instant.getEpochSecond() - epoch.getEpochSecond(), 60);
+            return (int) Math.floorDiv(secondOf(instant), 60);
+        }
+
+        long secondOf(Instant instant) {
+            return instant.getEpochSecond() - epoch.getEpochSecond();
         }
 
         int siteOf(int telescopeIndex) {
@@ -249,7 +253,9 @@ public final class CandidateGenerator {
         private final Map<Long, SkyConditions> sampled = new HashMap<>();
         private final Map<String, List<SkyWindow>> windowCache = new HashMap<>();
         /** Starts of the repeats already observed, planner minutes; no open repeat may start closer to one. */
-        private int[] observedMinutes = new int[0];
+        /** The repeats already observed, in seconds from the registry's epoch, and the least spacing from them. */
+        private long[] observedSeconds = new long[0];
+        private long gapSeconds;
 
         RequestCandidates(PlanningProblem problem, Request request, PlacementRegistry registry, int grid, Program program,
                           List<ProgramGrant> grants, Map<String, Assignment> pins, Map<String, Assignment> published,
@@ -312,9 +318,12 @@ public final class CandidateGenerator {
 
             LocalDate from = max(request.earliestNight(), problem.firstNight());
             LocalDate to = min(request.latestNight(), problem.lastNight());
-            long gapMinutes = request.minimumSpacing().toMinutes();
+            Duration spacing = request.minimumSpacing();
+            // Rounded up: starts on whole minutes that are at least this many minutes apart keep the whole spacing.
+            gapSeconds = spacing.getSeconds() + (spacing.getNano() > 0 ? 1 : 0);
+            long gapMinutes = (gapSeconds + 59) / 60;
             long gapDays = gapMinutes / (24 * 60);
-            observedMinutes = request.observedStarts().stream().mapToInt(registry::minuteOf).toArray();
+            observedSeconds = request.observedStarts().stream().mapToLong(registry::secondOf).toArray();
 
             List<Visit> visits = new ArrayList<>();
             for (int k = 0; k < request.repeats(); k++) {
@@ -376,7 +385,7 @@ public final class CandidateGenerator {
                             int first = ceilTo(registry.minuteOf(w.start()) + (w.start().getEpochSecond() % 60 == 0 ? 0 : 1), step);
                             int lastStart = registry.minuteOf(w.end()) - length[t];
                             for (int m = first; m <= lastStart; m += step) {
-                                if (tooCloseToObserved(m, gapMinutes)) {
+                                if (tooCloseToObserved(m)) {
                                     continue;
                                 }
                                 SkyConditions c = conditionsAt(s, site, m + length[t] / 2);
@@ -402,8 +411,8 @@ public final class CandidateGenerator {
 
             Assignment pin = pins.get(visitId);
             Assignment pub = published.get(visitId);
-            Placement pinPlacement = pin == null ? null : forcedPlacement(pin, length, eligible, costs, true, gapMinutes);
-            Placement pubPlacement = pub == null ? null : forcedPlacement(pub, length, eligible, costs, false, gapMinutes);
+            Placement pinPlacement = pin == null ? null : forcedPlacement(pin, length, eligible, costs, true);
+            Placement pubPlacement = pub == null ? null : forcedPlacement(pub, length, eligible, costs, false);
 
             List<Placement> candidates = new ArrayList<>(costs.keySet());
             candidates.sort(Comparator.comparingInt(Placement::id));
@@ -466,36 +475,37 @@ public final class CandidateGenerator {
             return out;
         }
 
-        /**
-         * The placement of a pin or of the published plan. A pin is always accepted as a candidate, flagged with every
-         * rule it breaks; a published placement only when it breaks nothing (else the visit is free to move).
-         */
-        private boolean tooCloseToObserved(int startMinute, int gapMinutes) {
-            for (int observed : observedMinutes) {
-                if (Math.abs(startMinute - observed) < gapMinutes) {
+        /** Whether a start at this minute lies closer than the spacing to a repeat of the request already observed. */
+        private boolean tooCloseToObserved(int startMinute) {
+            for (long observed : observedSeconds) {
+                if (Math.abs(60L * startMinute - observed) < gapSeconds) {
                     return true;
                 }
             }
             return false;
         }
 
+        /**
+         * The placement of a pin or of the published plan. A pin is always accepted as a candidate, flagged with every
+         * rule it breaks; a published placement only when it breaks nothing (else the visit is free to move).
+         */
         private Placement forcedPlacement(Assignment a, int[] length, boolean[] eligible, Map<Placement, int[]> costs,
-                                          boolean pin, int gapMinutes) {
+                                          boolean pin) {
             int t = telescopeIndex(a.telescopeId());
             int start = ceilTo(registry.minuteOf(a.start()), grid);
             Placement p = registry.get(t, start);
             if (costs.containsKey(p)) {
                 return p;
             }
-            // A published place too close to a repeat observed since is given up; a pin is the coordinator's word and
-            // stays, judged below like any forced place.
-            if (!pin && tooCloseToObserved(start, gapMinutes)) {
-                return null;
-            }
             Telescope telescope = registry.telescopes().get(t);
             Site site = registry.sites().get(registry.siteOf(t));
             LocalDate night = PlacementRegistry.nightOf(site, registry.instantOf(start));
             int flags = 0;
+            // A published place too close to a repeat observed since is given up like any other that breaks a rule;
+            // a pin is the coordinator's word and stays, flagged so that the plan reports it.
+            if (tooCloseToObserved(start)) {
+                flags |= Visit.TOO_CLOSE_TO_OBSERVED;
+            }
             if (!eligible[t]) {
                 flags |= Visit.INSTRUMENT_MISSING;
             }

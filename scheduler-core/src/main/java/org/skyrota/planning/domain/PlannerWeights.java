@@ -23,6 +23,8 @@ public final class PlannerWeights {
     private HardMediumSoftLongScore instrumentMissing = HardMediumSoftLongScore.ofHard(1);
     @ConstraintWeight(RuleNames.REPEATS_TOO_CLOSE)
     private HardMediumSoftLongScore repeatsTooClose = HardMediumSoftLongScore.ofHard(1);
+    @ConstraintWeight(RuleNames.TOO_CLOSE_TO_OBSERVED)
+    private HardMediumSoftLongScore tooCloseToObserved = HardMediumSoftLongScore.ofHard(1);
     @ConstraintWeight(RuleNames.CLOSED_NIGHT)
     private HardMediumSoftLongScore closedNight = HardMediumSoftLongScore.ofHard(1);
     @ConstraintWeight(RuleNames.SUN_AVOIDANCE)

@@ -8,6 +8,7 @@ public final class RuleNames {
     public static final String OUTSIDE_WINDOW = "Outside visibility window";
     public static final String INSTRUMENT_MISSING = "Instrument or filter missing";
     public static final String REPEATS_TOO_CLOSE = "Repeats too close";
+    public static final String TOO_CLOSE_TO_OBSERVED = "Too close to an observed repeat";
     public static final String CLOSED_NIGHT = "Closed night";
     public static final String SUN_AVOIDANCE = "Sun avoidance";
     public static final String PROGRAM_OVER_GRANT = "Program over grant";
@@ -21,7 +22,7 @@ public final class RuleNames {
     public static final String STABILITY = "Moved from published plan";
 
     public static final List<String> ALL = List.of(TELESCOPE_OVERLAP, OUTSIDE_WINDOW, INSTRUMENT_MISSING,
-            REPEATS_TOO_CLOSE, CLOSED_NIGHT, SUN_AVOIDANCE, PROGRAM_OVER_GRANT, UNPLACED_VISIT, AIRMASS_QUALITY,
+            REPEATS_TOO_CLOSE, TOO_CLOSE_TO_OBSERVED, CLOSED_NIGHT, SUN_AVOIDANCE, PROGRAM_OVER_GRANT, UNPLACED_VISIT, AIRMASS_QUALITY,
             SKY_BRIGHTNESS, IDLE_TIME, OVERHEAD_TIME, PROGRAM_FAIRNESS, URGENCY, STABILITY);
 
     private RuleNames() {

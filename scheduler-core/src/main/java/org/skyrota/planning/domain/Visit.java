@@ -22,6 +22,8 @@ public class Visit {
     public static final byte INSTRUMENT_MISSING = 2;
     /** Candidate flag: too close to the Sun, or a solar target without a certified solar filter. */
     public static final byte SUN_VIOLATION = 4;
+    /** Candidate flag: starts closer to an already observed repeat of its request than the spacing; only pins. */
+    public static final byte TOO_CLOSE_TO_OBSERVED = 8;
 
     @PlanningId
     private String id;

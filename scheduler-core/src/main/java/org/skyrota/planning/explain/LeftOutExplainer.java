@@ -77,9 +77,16 @@ public final class LeftOutExplainer {
                     + " filter" + plural(s.filters().size()) + " between " + range;
         }
         if (v.candidateCount() == 0) {
-            return s.closedWindowNights() > 0
-                    ? "observable only on closed nights between " + range
-                    : "observable between " + range + " but only too close to the Sun or outside the visit's repeat spacing";
+            if (s.closedWindowNights() >= s.windowNights()) {
+                return "observable only on closed nights between " + range;
+            }
+            String spacing = r.observedStarts().isEmpty() ? "its repeat spacing"
+                    : "its repeat spacing from the repeats already observed";
+            String closed = s.closedWindowNights() == 0 ? ""
+                    : String.format(Locale.ROOT, " (%d of them closed)", s.closedWindowNights());
+            return String.format(Locale.ROOT, "observable on %d night%s%s between %s, but on the open ones only too close"
+                    + " to the Sun or within %s", s.windowNights(), s.windowNights() == 1 ? "" : "s", closed, range,
+                    spacing);
         }
 
         // It had places to go: what holds them?

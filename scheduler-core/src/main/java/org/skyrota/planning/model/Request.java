@@ -17,7 +17,8 @@ import java.util.List;
  * @param earliestNight first night (site-local date of the evening) a visit may use
  * @param latestNight  last night a visit may use
  * @param repeats      number of visits, at least 1
- * @param interval     least spacing between successive visits (zero when repeats is 1)
+ * @param interval     spacing between successive visits, also from the repeats already observed (zero when there
+ *                     is a single visit and nothing observed)
  * @param tolerance    how much closer than the interval a repeat may still be
  * @param priority     1 (low) to 5 (high)
  * @param observedStarts when the repeats already observed were taken: {@code repeats} counts only the open ones,

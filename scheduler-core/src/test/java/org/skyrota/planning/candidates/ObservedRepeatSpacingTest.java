@@ -14,6 +14,7 @@ import java.util.Set;
 
 import org.junit.jupiter.api.Test;
 import org.skyrota.planning.domain.PlannerWeights;
+import org.skyrota.planning.explain.LeftOutExplainer;
 import org.skyrota.planning.domain.Visit;
 import org.skyrota.planning.model.Assignment;
 import org.skyrota.planning.model.ExposureStep;
@@ -30,7 +31,8 @@ import org.skyrota.planning.sky.SyntheticSky;
 
 /**
  * A repeat left open keeps its spacing from the repeats already observed, as repeats keep it from each other. On the
- * synthetic sky (dark 20:00 to 05:00 local) a target at RA 165° culminates at 23:00 local and is up ±3 h.
+ * synthetic sky (dark 20:00 to 05:00 local) the target at RA 165° is in its window from dusk to about 20:55 local
+ * on these nights.
  */
 class ObservedRepeatSpacingTest {
     private static final LocalDate NIGHT = LocalDate.of(2027, 3, 1);
@@ -75,6 +77,43 @@ class ObservedRepeatSpacingTest {
         Visit pinned = prepare(request(List.of(OBSERVED)), List.of(there), List.of()).schedule().visits().get(0);
         assertThat(pinned.isPinned()).isTrue();
         assertThat(pinned.isPlaced()).isTrue();
+        // Kept, but flagged so that the plan names the broken spacing as a hard violation.
+        assertThat(pinned.has(Visit.TOO_CLOSE_TO_OBSERVED)).isTrue();
+        Visit pinnedFree = prepare(request(List.of()), List.of(there), List.of()).schedule().visits().get(0);
+        assertThat(pinnedFree.has(Visit.TOO_CLOSE_TO_OBSERVED)).isFalse();
+    }
+
+    @Test
+    void theSpacingIsKeptToTheSecondAtTheBoundary() {
+        // The open repeat may start from 20:10:30 local on the fourth night (42 h after the observed one), inside
+        // that night's window: the grid start at 20:10 is 30 s short and goes, the next one at 20:15 stays.
+        Instant gridStartShort = NIGHT.plusDays(3).atTime(3, 10).toInstant(ZoneOffset.UTC);
+        Instant earliestAllowed = gridStartShort.plusSeconds(30);
+        Instant observed = earliestAllowed.minus(INTERVAL.minus(TOLERANCE));
+        Instant firstOnGridAfter = gridStartShort.plus(Duration.ofMinutes(5));
+
+        PreparedProblem without = prepare(request(List.of()), List.of(), List.of());
+        assertThat(starts(without, without.schedule().visits().get(0)))
+                .contains(gridStartShort.minus(Duration.ofMinutes(5)), gridStartShort, firstOnGridAfter);
+
+        PreparedProblem with = prepare(request(List.of(observed)), List.of(), List.of());
+        List<Instant> spaced = starts(with, with.schedule().visits().get(0));
+        assertThat(spaced).doesNotContain(gridStartShort).allMatch(s -> !s.isBefore(earliestAllowed));
+        assertThat(spaced.get(0)).isEqualTo(firstOnGridAfter);
+    }
+
+    @Test
+    void aRepeatWithNoPlaceLeftAfterTheObservedOneIsExplainedSo() {
+        // Only the first two nights: every start lies within 42 h of the repeat observed on the first night.
+        Request shortRange = new Request("q", "lab", "member", Target.fixed("invented field q", 165, 20),
+                List.of(new ExposureStep("V", 60, 30)), ObservingLimits.dark(30), NIGHT, NIGHT.plusDays(1), 1,
+                INTERVAL, TOLERANCE, 3, List.of(OBSERVED));
+        PreparedProblem prepared = prepare(shortRange, List.of(), List.of());
+        Visit visit = prepared.schedule().visits().get(0);
+        assertThat(visit.candidateCount()).isZero();
+        assertThat(new LeftOutExplainer().explain(prepared).get(visit.id()))
+                .isEqualTo("observable on 2 nights between 2027-03-01 and 2027-03-02, but on the open ones only too"
+                        + " close to the Sun or within its repeat spacing from the repeats already observed");
     }
 
     @Test

@@ -141,9 +141,9 @@ public final class PlanningMapper {
             if (target == null) {
                 continue;
             }
-            List<Instant> observedStarts = observed.entrySet().stream()
-                    .filter(e -> e.getKey() >= 1 && e.getKey() <= r.getRepeats()).map(Map.Entry::getValue).sorted()
-                    .toList();
+            // Every observation counts, even of a repeat number above a since-lowered count: it was taken all the
+            // same, and the open repeats keep their spacing from it.
+            List<Instant> observedStarts = observed.values().stream().sorted().toList();
             Request request = request(r, target, open.size(), observedStarts, in.firstNight(), in.lastNight());
             requests.add(request);
             for (int i = 0; i < open.size(); i++) {

@@ -68,9 +68,12 @@ public class ReportService {
         if (visit.getTelescopeId() != token.telescopeId()) {
             throw new AccessDeniedException("visit " + visitId + " is planned on another telescope");
         }
+        // observedAt is when the visit started; a report that leaves it out is taken to say the visit ran as
+        // published, and the spacing of the open repeats is measured from that start, not from when it was sent.
         long seconds = how == Outcome.DONE ? Duration.between(visit.getStart(), visit.getEnd()).toSeconds() : 0;
         ObservationReport saved = reports.saveAndFlush(new ObservationReport(key.requestId(), key.repeatNo(),
-                token.telescopeId(), how, reason, observedAt == null ? Instant.now() : observedAt, seconds, token.tokenId()));
+                token.telescopeId(), how, reason, observedAt == null ? visit.getStart() : observedAt, seconds,
+                token.tokenId()));
         ReportView view = ReportView.of(saved);
         audit.record("create", "observation-report", saved.getId(), null, view);
         return view;

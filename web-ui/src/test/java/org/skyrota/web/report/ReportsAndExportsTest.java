@@ -143,6 +143,12 @@ class ReportsAndExportsTest {
 
         Answer ok = api.post("/api/reports", ApiClient.bearer(reports), report(ids.get(0), "partial"));
         assertThat(ok.status()).as(ok.body()).isEqualTo(201);
+        // Without observedAt the visit is taken to have run as published: observed at its published start.
+        Answer untimed = api.post("/api/reports", ApiClient.bearer(reports),
+                "{\"visitId\":\"" + ids.get(0) + "\",\"outcome\":\"partial\"}");
+        assertThat(untimed.status()).as(untimed.body()).isEqualTo(201);
+        assertThat(Instant.parse(untimed.json("$.observedAt")))
+                .isEqualTo(Instant.parse(published.json("$.visits[0].start")));
         long tokenId = api.get("/api/tokens", ADMIN).<List<Integer>>json("$[-1:].id").get(0);
         assertThat(tokenId).isPositive();
 
@@ -211,6 +217,10 @@ class ReportsAndExportsTest {
         // 02:00 local on the next: later than the planner would choose on its own (near the meridian, about 23:30),
         // yet with the target still high enough (above 30° until about 04:00).
         Instant observedAt = Instant.parse("2027-01-11T05:00:00Z");
+        List<String> publishedStart = published.json("$.visits[?(@.id == '" + second + "')].start");
+        assertThat(publishedStart).as("the second repeat was published too close, so the rule has to move it")
+                .hasSize(1);
+        assertThat(Instant.parse(publishedStart.get(0))).isBefore(observedAt.plus(Duration.ofHours(20)));
         Answer done = api.post("/api/reports", ApiClient.bearer(reports), "{\"visitId\":\"" + first
                 + "\",\"outcome\":\"done\",\"observedAt\":\"" + observedAt + "\"}");
         assertThat(done.status()).as(done.body()).isEqualTo(201);
