@@ -235,6 +235,13 @@ class ReportsAndExportsTest {
         assertThat(starts).as(draft.body()).hasSize(1);
         assertThat(Instant.parse(starts.get(0))).isAfterOrEqualTo(observedAt.plus(Duration.ofHours(20)));
         assertThat(draft.<List<String>>json("$.visits[*].id")).doesNotContain(first);
+
+        // A coordinator may still put it back where it was published: allowed, but named as a broken hard rule.
+        List<Integer> publishedTelescope = published.json("$.visits[?(@.id == '" + second + "')].telescopeId");
+        Answer back = api.post("/api/visits/" + second + "/move?dryRun=true", COORD, "{\"telescopeId\":"
+                + publishedTelescope.get(0) + ",\"start\":\"" + publishedStart.get(0) + "\"}");
+        assertThat(back.status()).as(back.body()).isEqualTo(200);
+        assertThat(back.<List<String>>json("$.hardBroken")).as(back.body()).contains("Too close to an observed repeat");
     }
 
     @Test
