@@ -328,10 +328,12 @@ public final class CandidateGenerator {
             List<Visit> visits = new ArrayList<>();
             for (int k = 0; k < request.repeats(); k++) {
                 String visitId = request.visitId(k);
-                // Repeat k cannot start before k spacings after the first possible night, nor so late that the
-                // remaining repeats no longer fit: prune those nights (and break the symmetry between repeats).
+                // Counted in time order, the k-th placed repeat starts at least k spacings after the first possible
+                // night, so those nights are pruned (which also breaks the symmetry between repeats). The end is not
+                // pruned: when the range or the horizon leaves room for fewer repeats than asked, those that fit
+                // must still find a place, and any of them may be the last.
                 LocalDate visitFrom = from.plusDays(k * gapDays);
-                LocalDate visitTo = to.minusDays((request.repeats() - 1 - k) * gapDays);
+                LocalDate visitTo = to;
                 visits.add(buildVisit(visitId, k, visitFrom, visitTo, length, overhead, eligible, eligibleCount, nominal,
                         (int) gapMinutes));
             }

@@ -14,6 +14,7 @@ import org.skyrota.planning.candidates.VisitStats;
 import org.skyrota.planning.domain.Placement;
 import org.skyrota.planning.domain.ProgramGrant;
 import org.skyrota.planning.domain.Visit;
+import org.skyrota.planning.model.PlanningProblem;
 import org.skyrota.planning.model.Request;
 import org.skyrota.planning.model.SolarSafety;
 
@@ -66,7 +67,13 @@ public final class LeftOutExplainer {
                     : "no telescope has an instrument with the " + filters + " filter" + plural(s.filters().size());
         }
         if (s.nightsConsidered() == 0) {
-            return "its nights (" + range + ") fall outside the planning horizon";
+            PlanningProblem problem = prepared.problem();
+            boolean overlapsHorizon = !r.latestNight().isBefore(problem.firstNight())
+                    && !r.earliestNight().isAfter(problem.lastNight());
+            return overlapsHorizon
+                    ? String.format(Locale.ROOT, "the nights of its range inside the planning horizon leave no room for"
+                    + " this many repeats %s apart", hours(r.minimumSpacing().toMinutes()))
+                    : "its nights (" + range + ") fall outside the planning horizon";
         }
         if (s.windowNights() == 0) {
             if (s.longestWindowMinutes() > 0) {
