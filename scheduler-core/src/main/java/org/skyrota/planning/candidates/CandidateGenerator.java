@@ -252,10 +252,9 @@ public final class CandidateGenerator {
         private final Map<String, VisitStats> stats;
         private final Map<Long, SkyConditions> sampled = new HashMap<>();
         private final Map<String, List<SkyWindow>> windowCache = new HashMap<>();
-        /** Starts of the repeats already observed, planner minutes; no open repeat may start closer to one. */
-        /** The repeats already observed, in seconds from the registry's epoch, and the least spacing from them. */
-        private long[] observedSeconds = new long[0];
-        private long gapSeconds;
+        /** When the repeats already observed were taken, and the least spacing every open repeat keeps from them. */
+        private List<Instant> observed = List.of();
+        private Duration spacing = Duration.ZERO;
 
         RequestCandidates(PlanningProblem problem, Request request, PlacementRegistry registry, int grid, Program program,
                           List<ProgramGrant> grants, Map<String, Assignment> pins, Map<String, Assignment> published,
@@ -318,30 +317,42 @@ public final class CandidateGenerator {
 
             LocalDate from = max(request.earliestNight(), problem.firstNight());
             LocalDate to = min(request.latestNight(), problem.lastNight());
-            Duration spacing = request.minimumSpacing();
+            spacing = request.minimumSpacing();
             // Rounded up: starts on whole minutes that are at least this many minutes apart keep the whole spacing.
-            gapSeconds = spacing.getSeconds() + (spacing.getNano() > 0 ? 1 : 0);
-            long gapMinutes = (gapSeconds + 59) / 60;
-            long gapDays = gapMinutes / (24 * 60);
-            observedSeconds = request.observedStarts().stream().mapToLong(registry::secondOf).toArray();
+            long gapMinutes = (spacing.getSeconds() + (spacing.getNano() > 0 ? 1 : 0) + 59) / 60;
+            observed = request.observedStarts();
+            // The earliest minute any visit of the request could start: night `from` begins at local noon, first at
+            // the easternmost site.
+            long firstMinute = Long.MAX_VALUE;
+            for (Site site : registry.sites()) {
+                firstMinute = Math.min(firstMinute, noonMinute(site, from));
+            }
 
             List<Visit> visits = new ArrayList<>();
+            int rank = 0;
             for (int k = 0; k < request.repeats(); k++) {
                 String visitId = request.visitId(k);
-                // Counted in time order, the k-th placed repeat starts at least k spacings after the first possible
-                // night, so those nights are pruned (which also breaks the symmetry between repeats). The end is not
-                // pruned: when the range or the horizon leaves room for fewer repeats than asked, those that fit
+                // Counted in time order, the r-th placed repeat that is not pinned starts at least r spacings after
+                // the request's first possible minute (pins keep their own places, so only the others are counted):
+                // earlier starts are pruned, which also breaks the symmetry between repeats. Nothing is pruned at
+                // the end: when the range or the horizon leaves room for fewer repeats than asked, those that fit
                 // must still find a place, and any of them may be the last.
-                LocalDate visitFrom = from.plusDays(k * gapDays);
-                LocalDate visitTo = to;
-                visits.add(buildVisit(visitId, k, visitFrom, visitTo, length, overhead, eligible, eligibleCount, nominal,
-                        (int) gapMinutes));
+                long lowerMinute = firstMinute + rank * gapMinutes;
+                if (!pins.containsKey(visitId)) {
+                    rank++;
+                }
+                visits.add(buildVisit(visitId, k, lowerMinute, from, to, length, overhead, eligible, eligibleCount,
+                        nominal, (int) gapMinutes));
             }
             return visits;
         }
 
-        private Visit buildVisit(String visitId, int k, LocalDate from, LocalDate to, int[] length, int[] overhead,
-                                 boolean[] eligible, int eligibleCount, int nominal, int gapMinutes) {
+        private long noonMinute(Site site, LocalDate night) {
+            return Math.floorDiv(registry.secondOf(night.atTime(12, 0).atZone(site.nightZone()).toInstant()), 60);
+        }
+
+        private Visit buildVisit(String visitId, int k, long lowerMinute, LocalDate from, LocalDate to, int[] length,
+                                 int[] overhead, boolean[] eligible, int eligibleCount, int nominal, int gapMinutes) {
             List<Telescope> telescopes = registry.telescopes();
             List<Site> sites = registry.sites();
             int step = problem.candidateStepMinutes();
@@ -350,12 +361,19 @@ public final class CandidateGenerator {
             int closedWindowNights = 0;
             long observable = 0;
             long longest = 0;
-            int nightsConsidered = from.isAfter(to) ? 0 : (int) (to.toEpochDay() - from.toEpochDay() + 1);
+            int nightsConsidered = 0;
             int rangeNights = Math.max(1, (int) (request.latestNight().toEpochDay() - request.earliestNight().toEpochDay() + 1));
             for (int s = 0; s < sites.size(); s++) {
                 Site site = sites.get(s);
-                for (LocalDate night = from; !night.isAfter(to); night = night.plusDays(1)) {
+                // Skip the nights that end before the lower minute; local noons are a day apart give or take the
+                // hour of a daylight-saving change, hence the hour of margin.
+                LocalDate siteFrom = from.plusDays(Math.max(0,
+                        Math.floorDiv(lowerMinute - noonMinute(site, from) - 60, 24 * 60)));
+                nightsConsidered = Math.max(nightsConsidered,
+                        siteFrom.isAfter(to) ? 0 : (int) (to.toEpochDay() - siteFrom.toEpochDay() + 1));
+                for (LocalDate night = siteFrom; !night.isAfter(to); night = night.plusDays(1)) {
                     boolean nightCounted = false;
+                    boolean nightOpen = false;
                     List<int[]> nightCandidates = new ArrayList<>();
                     for (int t = 0; t < telescopes.size(); t++) {
                         Telescope telescope = telescopes.get(t);
@@ -380,11 +398,12 @@ public final class CandidateGenerator {
                                     .mapToLong(w -> Duration.between(w.start(), w.end()).toMinutes()).sum();
                         }
                         if (closed(telescope, night)) {
-                            closedWindowNights++;
                             continue;
                         }
+                        nightOpen = true;
                         for (SkyWindow w : usable) {
-                            int first = ceilTo(registry.minuteOf(w.start()) + (w.start().getEpochSecond() % 60 == 0 ? 0 : 1), step);
+                            int windowStart = registry.minuteOf(w.start()) + (w.start().getEpochSecond() % 60 == 0 ? 0 : 1);
+                            int first = ceilTo((int) Math.max(windowStart, lowerMinute), step);
                             int lastStart = registry.minuteOf(w.end()) - length[t];
                             for (int m = first; m <= lastStart; m += step) {
                                 if (tooCloseToObserved(m)) {
@@ -399,6 +418,9 @@ public final class CandidateGenerator {
                                         (int) Math.round(100 * Math.max(0, site.darkSkyZenithVMag() - c.skyBrightnessVMag()))});
                             }
                         }
+                    }
+                    if (nightCounted && !nightOpen) {
+                        closedWindowNights++;
                     }
                     int bestAirmass = nightCandidates.stream().mapToInt(c -> c[2]).min().orElse(0);
                     int nightIndex = (int) (night.toEpochDay() - request.earliestNight().toEpochDay());
@@ -479,8 +501,9 @@ public final class CandidateGenerator {
 
         /** Whether a start at this minute lies closer than the spacing to a repeat of the request already observed. */
         private boolean tooCloseToObserved(int startMinute) {
-            for (long observed : observedSeconds) {
-                if (Math.abs(60L * startMinute - observed) < gapSeconds) {
+            Instant start = registry.instantOf(startMinute);
+            for (Instant o : observed) {
+                if (Duration.between(o, start).abs().compareTo(spacing) < 0) {
                     return true;
                 }
             }

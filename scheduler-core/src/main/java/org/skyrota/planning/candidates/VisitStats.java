@@ -6,9 +6,9 @@ import java.util.List;
  * What candidate generation learned about one visit, kept for the left-out reasons.
  *
  * @param eligibleTelescopes     telescopes with an instrument for the plan (and a certified solar filter for solar targets)
- * @param nightsConsidered       nights in the visit's own range within the horizon
+ * @param nightsConsidered       nights in the visit's own range within the horizon (at the site where it has most)
  * @param windowNights           site-nights with at least one visibility window long enough for the visit
- * @param closedWindowNights     of those, telescope-nights lost to closures
+ * @param closedWindowNights     of those, site-nights on which every telescope with such a window was closed
  * @param observableMinutes      total length of the long-enough windows, summed over sites and nights
  * @param longestWindowMinutes   the longest single window seen (long enough or not)
  * @param neededMinutes          the visit's length on its fastest eligible telescope

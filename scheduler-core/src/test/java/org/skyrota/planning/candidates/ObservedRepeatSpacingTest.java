@@ -17,6 +17,7 @@ import org.skyrota.planning.domain.PlannerWeights;
 import org.skyrota.planning.explain.LeftOutExplainer;
 import org.skyrota.planning.domain.Visit;
 import org.skyrota.planning.model.Assignment;
+import org.skyrota.planning.model.Closure;
 import org.skyrota.planning.model.ExposureStep;
 import org.skyrota.planning.model.Instrument;
 import org.skyrota.planning.model.MountKind;
@@ -109,6 +110,29 @@ class ObservedRepeatSpacingTest {
                 List.of(new ExposureStep("V", 60, 30)), ObservingLimits.dark(30), NIGHT, NIGHT.plusDays(1), 1,
                 INTERVAL, TOLERANCE, 3, List.of(OBSERVED));
         PreparedProblem prepared = prepare(shortRange, List.of(), List.of());
+        Visit visit = prepared.schedule().visits().get(0);
+        assertThat(visit.candidateCount()).isZero();
+        assertThat(new LeftOutExplainer().explain(prepared).get(visit.id()))
+                .isEqualTo("observable on 2 nights between 2027-03-01 and 2027-03-02, but on the open ones only too"
+                        + " close to the Sun or within its repeat spacing from the repeats already observed");
+    }
+
+    @Test
+    void oneTelescopeClosedAndTheOtherTooCloseIsNotCalledOnlyClosedNights() {
+        // Two telescopes at the site; the second is closed on both nights, the first has only starts too close.
+        Request shortRange = new Request("q", "lab", "member", Target.fixed("invented field q", 165, 20),
+                List.of(new ExposureStep("V", 60, 30)), ObservingLimits.dark(30), NIGHT, NIGHT.plusDays(1), 1,
+                INTERVAL, TOLERANCE, 3, List.of(OBSERVED));
+        Telescope second = new Telescope("hill-b", "hill", 0.4, MountKind.EQUATORIAL, 5, 0, 10, 90);
+        PlanningProblem problem = new PlanningProblem(List.of(SITE), List.of(SCOPE, second),
+                List.of(new Instrument("cam", "hill-a", Set.of("V"), 0, 0, false),
+                        new Instrument("cam-b", "hill-b", Set.of("V"), 0, 0, false)),
+                List.of(new Program("lab", "Lab (invented)", 100, 1)), List.of(shortRange),
+                List.of(Closure.telescope("hill", "hill-b", NIGHT, "maintenance"),
+                        Closure.telescope("hill", "hill-b", NIGHT.plusDays(1), "maintenance")),
+                List.of(), List.of(), NIGHT, NIGHT.plusDays(4), 5, 5);
+        PreparedProblem prepared = new CandidateGenerator(new SyntheticSky(Duration.ofHours(3))).prepare(problem,
+                PlannerWeights.defaults().withOverrides(Map.of()));
         Visit visit = prepared.schedule().visits().get(0);
         assertThat(visit.candidateCount()).isZero();
         assertThat(new LeftOutExplainer().explain(prepared).get(visit.id()))

@@ -128,12 +128,7 @@ public final class PlanningMapper {
                 continue;
             }
             Map<Integer, Instant> observed = in.observedRepeats().getOrDefault(r.getId(), Map.of());
-            List<Integer> open = new ArrayList<>();
-            for (int n = 1; n <= r.getRepeats(); n++) {
-                if (!observed.containsKey(n)) {
-                    open.add(n);
-                }
-            }
+            List<Integer> open = openRepeats(r.getRepeats(), observed.keySet());
             if (open.isEmpty()) {
                 continue;
             }
@@ -243,6 +238,21 @@ public final class PlanningMapper {
 
     static Request request(ObservingRequest r, Target target, int openRepeats, LocalDate first, LocalDate last) {
         return request(r, target, openRepeats, List.of(), first, last);
+    }
+
+    /**
+     * The repeat numbers still to plan: as many as were asked and not yet observed (an observation numbered above a
+     * since-lowered count still counts), by the lowest numbers not observed.
+     */
+    static List<Integer> openRepeats(int repeats, java.util.Set<Integer> observed) {
+        int stillOpen = Math.max(0, repeats - observed.size());
+        List<Integer> open = new ArrayList<>();
+        for (int n = 1; open.size() < stillOpen; n++) {
+            if (!observed.contains(n)) {
+                open.add(n);
+            }
+        }
+        return open;
     }
 
     /** @param observedStarts when the repeats already observed were taken: the open ones keep their spacing from them */

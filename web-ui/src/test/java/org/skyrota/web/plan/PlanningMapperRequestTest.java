@@ -83,4 +83,14 @@ class PlanningMapperRequestTest {
         assertThat(old.interval()).isZero();
         assertThat(old.tolerance()).isZero();
     }
+
+    @Test
+    void theRepeatsLeftToPlanAreTheAskedLessTheObservedByTheLowestFreeNumbers() {
+        assertThat(PlanningMapper.openRepeats(3, java.util.Set.of())).containsExactly(1, 2, 3);
+        assertThat(PlanningMapper.openRepeats(3, java.util.Set.of(2))).containsExactly(1, 3);
+        // Lowered from 3 to 2 after repeats 1 and 3 were observed: nothing is left to plan.
+        assertThat(PlanningMapper.openRepeats(2, java.util.Set.of(1, 3))).isEmpty();
+        // Lowered from 4 to 3 after repeat 4 was observed: two more, numbered 1 and 2.
+        assertThat(PlanningMapper.openRepeats(3, java.util.Set.of(4))).containsExactly(1, 2);
+    }
 }
