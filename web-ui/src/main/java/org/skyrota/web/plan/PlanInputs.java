@@ -65,15 +65,15 @@ public class PlanInputs {
     }
 
     /**
-     * Per request, the repeats a telescope reported as done and when they were observed (the latest report of a repeat
-     * reported twice, the time the open repeats keep their spacing from).
+     * Per request, the repeats whose latest done-or-failed report says done, and when they were observed (the time the
+     * open repeats keep their spacing from).
      */
     @Transactional(readOnly = true, propagation = Propagation.SUPPORTS)
     public Map<Long, Map<Integer, Instant>> observedRepeats() {
         Map<Long, Map<Integer, Instant>> out = new HashMap<>();
-        reports.findAll().stream().filter(r -> r.getOutcome() == org.skyrota.web.report.Outcome.DONE)
+        org.skyrota.web.report.StandingReports.done(reports.findAll()).values()
                 .forEach(r -> out.computeIfAbsent(r.getRequestId(), k -> new HashMap<>())
-                        .merge(r.getRepeatNo(), r.getObservedAt(), (a, b) -> a.isAfter(b) ? a : b));
+                        .put(r.getRepeatNo(), r.getObservedAt()));
         return out;
     }
 }
