@@ -209,11 +209,7 @@ public final class CandidateGenerator {
         }
 
         int minuteOf(Instant instant) {
-            return (int) Math.floorDiv(secondOf(instant), 60);
-        }
-
-        long secondOf(Instant instant) {
-            return instant.getEpochSecond() - epoch.getEpochSecond();
+            return (int) Math.floorDiv(instant.getEpochSecond() - epoch.getEpochSecond(), 60);
         }
 
         int siteOf(int telescopeIndex) {
@@ -347,8 +343,8 @@ public final class CandidateGenerator {
             return visits;
         }
 
-        private long noonMinute(Site site, LocalDate night) {
-            return Math.floorDiv(registry.secondOf(night.atTime(12, 0).atZone(site.nightZone()).toInstant()), 60);
+        private int noonMinute(Site site, LocalDate night) {
+            return registry.minuteOf(night.atTime(12, 0).atZone(site.nightZone()).toInstant());
         }
 
         private Visit buildVisit(String visitId, int k, long lowerMinute, LocalDate from, LocalDate to, int[] length,
@@ -501,6 +497,9 @@ public final class CandidateGenerator {
 
         /** Whether a start at this minute lies closer than the spacing to a repeat of the request already observed. */
         private boolean tooCloseToObserved(int startMinute) {
+            if (observed.isEmpty()) {
+                return false;
+            }
             Instant start = registry.instantOf(startMinute);
             for (Instant o : observed) {
                 if (Duration.between(o, start).abs().compareTo(spacing) < 0) {

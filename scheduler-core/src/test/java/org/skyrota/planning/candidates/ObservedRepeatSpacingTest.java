@@ -43,6 +43,10 @@ class ObservedRepeatSpacingTest {
     private static final Instant OBSERVED = NIGHT.plusDays(1).atTime(6, 0).toInstant(ZoneOffset.UTC);
     private static final Duration INTERVAL = Duration.ofDays(2);
     private static final Duration TOLERANCE = Duration.ofHours(6);
+    /** The reason for the open repeat when only the first two nights are asked for. */
+    private static final String NO_ROOM_AFTER_OBSERVED = "observable on 2 nights between 2027-03-01 and 2027-03-02,"
+            + " but on the open ones only too close to the Sun or within its repeat spacing from the repeats already"
+            + " observed";
 
     @Test
     void noCandidateOfTheOpenRepeatStartsCloserToTheObservedOneThanTheIntervalLessItsTolerance() {
@@ -106,23 +110,18 @@ class ObservedRepeatSpacingTest {
     @Test
     void aRepeatWithNoPlaceLeftAfterTheObservedOneIsExplainedSo() {
         // Only the first two nights: every start lies within 42 h of the repeat observed on the first night.
-        Request shortRange = new Request("q", "lab", "member", Target.fixed("invented field q", 165, 20),
-                List.of(new ExposureStep("V", 60, 30)), ObservingLimits.dark(30), NIGHT, NIGHT.plusDays(1), 1,
-                INTERVAL, TOLERANCE, 3, List.of(OBSERVED));
+        Request shortRange = request(List.of(OBSERVED), NIGHT.plusDays(1));
         PreparedProblem prepared = prepare(shortRange, List.of(), List.of());
         Visit visit = prepared.schedule().visits().get(0);
         assertThat(visit.candidateCount()).isZero();
         assertThat(new LeftOutExplainer().explain(prepared).get(visit.id()))
-                .isEqualTo("observable on 2 nights between 2027-03-01 and 2027-03-02, but on the open ones only too"
-                        + " close to the Sun or within its repeat spacing from the repeats already observed");
+                .isEqualTo(NO_ROOM_AFTER_OBSERVED);
     }
 
     @Test
     void oneTelescopeClosedAndTheOtherTooCloseIsNotCalledOnlyClosedNights() {
         // Two telescopes at the site; the second is closed on both nights, the first has only starts too close.
-        Request shortRange = new Request("q", "lab", "member", Target.fixed("invented field q", 165, 20),
-                List.of(new ExposureStep("V", 60, 30)), ObservingLimits.dark(30), NIGHT, NIGHT.plusDays(1), 1,
-                INTERVAL, TOLERANCE, 3, List.of(OBSERVED));
+        Request shortRange = request(List.of(OBSERVED), NIGHT.plusDays(1));
         Telescope second = new Telescope("hill-b", "hill", 0.4, MountKind.EQUATORIAL, 5, 0, 10, 90);
         PlanningProblem problem = new PlanningProblem(List.of(SITE), List.of(SCOPE, second),
                 List.of(new Instrument("cam", "hill-a", Set.of("V"), 0, 0, false),
@@ -136,8 +135,7 @@ class ObservedRepeatSpacingTest {
         Visit visit = prepared.schedule().visits().get(0);
         assertThat(visit.candidateCount()).isZero();
         assertThat(new LeftOutExplainer().explain(prepared).get(visit.id()))
-                .isEqualTo("observable on 2 nights between 2027-03-01 and 2027-03-02, but on the open ones only too"
-                        + " close to the Sun or within its repeat spacing from the repeats already observed");
+                .isEqualTo(NO_ROOM_AFTER_OBSERVED);
     }
 
     @Test
@@ -147,8 +145,12 @@ class ObservedRepeatSpacingTest {
     }
 
     private static Request request(List<Instant> observed) {
+        return request(observed, NIGHT.plusDays(4));
+    }
+
+    private static Request request(List<Instant> observed, LocalDate lastNight) {
         return new Request("q", "lab", "member", Target.fixed("invented field q", 165, 20),
-                List.of(new ExposureStep("V", 60, 30)), ObservingLimits.dark(30), NIGHT, NIGHT.plusDays(4), 1, INTERVAL,
+                List.of(new ExposureStep("V", 60, 30)), ObservingLimits.dark(30), NIGHT, lastNight, 1, INTERVAL,
                 TOLERANCE, 3, observed);
     }
 

@@ -12,6 +12,7 @@ import org.skyrota.web.equipment.TelescopeRepository;
 import org.skyrota.web.plugin.TargetKinds;
 import org.skyrota.web.program.ProgramRepository;
 import org.skyrota.web.report.ObservationReportRepository;
+import org.skyrota.web.report.StandingReports;
 import org.skyrota.web.request.ObservingRequest;
 import org.skyrota.web.request.ObservingRequestRepository;
 import org.skyrota.web.request.RequestState;
@@ -71,7 +72,7 @@ public class PlanInputs {
     @Transactional(readOnly = true, propagation = Propagation.SUPPORTS)
     public Map<Long, Map<Integer, Instant>> observedRepeats() {
         Map<Long, Map<Integer, Instant>> out = new HashMap<>();
-        org.skyrota.web.report.StandingReports.done(reports.findAll()).values()
+        StandingReports.done(reports.findAll()).values()
                 .forEach(r -> out.computeIfAbsent(r.getRequestId(), k -> new HashMap<>())
                         .put(r.getRepeatNo(), r.getObservedAt()));
         return out;

@@ -31,6 +31,7 @@ import org.skyrota.web.program.Program;
 import org.skyrota.web.program.ProgramRepository;
 import org.skyrota.web.report.ObservationReport;
 import org.skyrota.web.report.ObservationReportRepository;
+import org.skyrota.web.report.StandingReports;
 import org.skyrota.web.request.ObservingRequest;
 import org.skyrota.web.request.ObservingRequestRepository;
 import org.skyrota.web.request.RequestService;
@@ -485,7 +486,7 @@ public class PlanService {
                 .forEach(v -> planned.merge(programOfRequest.getOrDefault(v.getRequestId(), -1L),
                         Duration.between(v.getStart(), v.getEnd()).toSeconds() / 3600.0, Double::sum)));
         Map<Long, Double> observed = new HashMap<>();
-        for (ObservationReport r : org.skyrota.web.report.StandingReports.done(reports.findAll()).values()) {
+        for (ObservationReport r : StandingReports.done(reports.findAll()).values()) {
             observed.merge(programOfRequest.getOrDefault(r.getRequestId(), -1L), r.getObservedSeconds() / 3600.0,
                     Double::sum);
         }
@@ -514,7 +515,7 @@ public class PlanService {
                         ? new VisitStatus(v.key().toString(), v.isPinned() ? "pinned" : "placed", v.getTelescopeId(),
                         siteOf.get(v.getTelescopeId()), v.getNight(), v.getStart(), v.getEnd(), null)
                         : new VisitStatus(v.key().toString(), "unplaced", null, null, null, null, null, v.getReason()))));
-        for (ObservationReport r : org.skyrota.web.report.StandingReports.done(reports.findAll()).values()) {
+        for (ObservationReport r : StandingReports.done(reports.findAll()).values()) {
             if (r.getRequestId() == requestId
                     && visits.stream().noneMatch(v -> v.visitId().equals(new VisitKey(requestId, r.getRepeatNo()).toString()))) {
                 visits.add(new VisitStatus(new VisitKey(requestId, r.getRepeatNo()).toString(), "observed", r.getTelescopeId(),

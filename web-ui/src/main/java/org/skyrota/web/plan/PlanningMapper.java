@@ -244,7 +244,7 @@ public final class PlanningMapper {
      * The repeat numbers still to plan: as many as were asked and not yet observed (an observation numbered above a
      * since-lowered count still counts), by the lowest numbers not observed.
      */
-    static List<Integer> openRepeats(int repeats, java.util.Set<Integer> observed) {
+    static List<Integer> openRepeats(int repeats, Set<Integer> observed) {
         int stillOpen = Math.max(0, repeats - observed.size());
         List<Integer> open = new ArrayList<>();
         for (int n = 1; open.size() < stillOpen; n++) {

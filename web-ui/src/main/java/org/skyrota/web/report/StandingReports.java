@@ -1,6 +1,5 @@
 package org.skyrota.web.report;
 
-import java.util.Comparator;
 import java.util.List;
 import java.util.Map;
 import java.util.stream.Collectors;
@@ -19,7 +18,7 @@ public final class StandingReports {
         Map<VisitKey, ObservationReport> latest = all.stream()
                 .filter(r -> r.getOutcome() != Outcome.PARTIAL)
                 .collect(Collectors.toMap(r -> new VisitKey(r.getRequestId(), r.getRepeatNo()), r -> r,
-                        (a, b) -> Comparator.comparing(ObservationReport::getId).compare(a, b) >= 0 ? a : b));
+                        (a, b) -> a.getId() > b.getId() ? a : b));
         latest.values().removeIf(r -> r.getOutcome() != Outcome.DONE);
         return latest;
     }
