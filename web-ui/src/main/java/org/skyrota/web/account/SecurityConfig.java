@@ -61,6 +61,7 @@ class SecurityConfig {
                         .requestMatchers(HttpMethod.POST, "/api/reports").hasAuthority("SCOPE_reports")
                         .requestMatchers("/api/tokens", "/api/tokens/**").hasRole(REVIEWER_ROLES_ADMIN)
                         .requestMatchers("/api/accounts", "/api/accounts/**").hasRole(REVIEWER_ROLES_ADMIN)
+                        .requestMatchers(HttpMethod.PUT, "/api/clock").hasRole(REVIEWER_ROLES_ADMIN)
                         .requestMatchers("/api/audit", "/api/audit/**").hasAnyRole(REVIEWER_ROLES_COORDINATOR, REVIEWER_ROLES_ADMIN)
                         .requestMatchers("/api/planner/**", "/api/visits/**", "/api/alerts").hasAnyRole(REVIEWER_ROLES_COORDINATOR, REVIEWER_ROLES_ADMIN)
                         .requestMatchers(HttpMethod.GET, "/api/plans/**").authenticated()

@@ -1,5 +1,6 @@
 package org.skyrota.web.compute;
 
+import java.time.Clock;
 import java.time.LocalDate;
 import java.time.ZoneId;
 import java.time.temporal.ChronoUnit;
@@ -34,8 +35,11 @@ class StoredSkyController {
     private final RequestService requests;
     private final SiteService sites;
     private final TargetKinds targetKinds;
+    private final Clock clock;
 
-    StoredSkyController(SkyComputations sky, RequestService requests, SiteService sites, TargetKinds targetKinds) {
+    StoredSkyController(SkyComputations sky, RequestService requests, SiteService sites, TargetKinds targetKinds,
+                        Clock clock) {
+        this.clock = clock;
         this.targetKinds = targetKinds;
         this.sky = sky;
         this.requests = requests;
@@ -53,7 +57,7 @@ class StoredSkyController {
     Observability observability(@PathVariable long id, @RequestParam(required = false) LocalDate from,
                                 @RequestParam(required = false) LocalDate to) {
         ObservingRequest r = requests.readable(id);
-        LocalDate first = from != null ? from : r.getEarliestNight() != null ? r.getEarliestNight() : LocalDate.now();
+        LocalDate first = from != null ? from : r.getEarliestNight() != null ? r.getEarliestNight() : LocalDate.now(clock);
         LocalDate last = to != null ? to : r.getLatestNight() != null && !r.getLatestNight().isBefore(first)
                 ? r.getLatestNight() : first.plusDays(13);
         if (last.isBefore(first)) {
@@ -86,7 +90,7 @@ class StoredSkyController {
     @GetMapping("/api/sites/{id}/almanac")
     AlmanacResponse almanac(@PathVariable long id, @RequestParam(required = false) LocalDate date) {
         Site s = sites.find(id);
-        return AlmanacResponse.of(sky.almanac(observer(s), date == null ? LocalDate.now() : date));
+        return AlmanacResponse.of(sky.almanac(observer(s), date == null ? LocalDate.now(clock) : date));
     }
 
     private static Observer observer(Site s) {

@@ -1,7 +1,7 @@
 package org.skyrota.web.demo;
 
+import java.time.Clock;
 import java.time.LocalDate;
-import java.time.ZoneOffset;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Random;
@@ -83,9 +83,12 @@ public class DemoData implements ApplicationRunner {
     private final ProgramRepository programs;
     private final ObservingRequestRepository requests;
     private final PasswordEncoder encoder;
+    private final Clock clock;
 
     DemoData(AccountRepository accounts, SiteRepository sites, TelescopeRepository telescopes, InstrumentRepository instruments,
-             ProgramRepository programs, ObservingRequestRepository requests, PasswordEncoder encoder) {
+             ProgramRepository programs, ObservingRequestRepository requests, PasswordEncoder encoder,
+             Clock clock) {
+        this.clock = clock;
         this.accounts = accounts;
         this.sites = sites;
         this.telescopes = telescopes;
@@ -105,7 +108,7 @@ public class DemoData implements ApplicationRunner {
             log.warn("--demo: the database is not empty, so no demo data was loaded (use an empty --skyrota.data-dir)");
             return;
         }
-        load(LocalDate.now(ZoneOffset.UTC));
+        load(LocalDate.now(clock));
         log.warn("\n\n  DEMO MODE: invented consortium loaded; accounts admin, coordinator, student, student2, password '{}'.\n"
                 + "  Do not use this database for real work.\n", PASSWORD);
     }

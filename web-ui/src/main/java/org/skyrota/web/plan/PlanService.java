@@ -65,6 +65,7 @@ public class PlanService {
     private final AuditLog audit;
     private final StoredChanges changes;
     private final TransactionTemplate readOnly;
+    private final java.time.Clock clock;
 
     /** How long a kept published view may be used at most, even when nothing this server saw has changed. */
     static final Duration PUBLISHED_VIEW_MAX_AGE = Duration.ofSeconds(5);
@@ -76,7 +77,9 @@ public class PlanService {
 
     PlanService(PlanRevisionRepository revisions, ObservingRequestRepository requests, TelescopeRepository telescopes,
                 ProgramRepository programs, ObservationReportRepository reports, RequestService requestService,
-                PlanScorer scorer, AuditLog audit, StoredChanges changes, PlatformTransactionManager transactions) {
+                PlanScorer scorer, AuditLog audit, StoredChanges changes, PlatformTransactionManager transactions,
+                java.time.Clock clock) {
+        this.clock = clock;
         this.revisions = revisions;
         this.requests = requests;
         this.telescopes = telescopes;
@@ -417,7 +420,7 @@ public class PlanService {
         draft.getNights().forEach(n -> copy.getNights().add(n.copy()));
         copy.setScore(draft.getScore());
         copy.setRunId(draft.getRunId());
-        copy.markPublished(Instant.now(), CurrentUser.get().username());
+        copy.markPublished(clock.instant(), CurrentUser.get().username());
         revisions.saveAndFlush(copy);
         Map<String, Object> after = summary(copy);
         after.put("fromDraft", draft.getId());

@@ -1,5 +1,6 @@
 package org.skyrota.web.report;
 
+import java.time.Clock;
 import java.time.Instant;
 import java.util.List;
 
@@ -25,8 +26,11 @@ public class TokenService {
     private final FeedTokenRepository feeds;
     private final TelescopeRepository telescopes;
     private final AuditLog audit;
+    private final Clock clock;
 
-    TokenService(ApiTokenRepository tokens, FeedTokenRepository feeds, TelescopeRepository telescopes, AuditLog audit) {
+    TokenService(ApiTokenRepository tokens, FeedTokenRepository feeds, TelescopeRepository telescopes, AuditLog audit,
+                 Clock clock) {
+        this.clock = clock;
         this.tokens = tokens;
         this.feeds = feeds;
         this.telescopes = telescopes;
@@ -79,7 +83,7 @@ public class TokenService {
     public void revoke(long id) {
         ApiToken t = tokens.findById(id).orElseThrow(() -> new NotFoundException("API token", id));
         TokenView before = TokenView.of(t);
-        t.revoke(Instant.now());
+        t.revoke(clock.instant());
         tokens.flush();
         audit.record("state:revoked", "api-token", id, before, TokenView.of(t));
     }
@@ -97,8 +101,8 @@ public class TokenService {
         String user = CurrentUser.get().username();
         String token = TokenText.newToken();
         String hash = TokenText.hash(token);
-        feeds.findById(user).ifPresentOrElse(f -> f.replace(hash, Instant.now()),
-                () -> feeds.save(new FeedToken(user, hash, Instant.now())));
+        feeds.findById(user).ifPresentOrElse(f -> f.replace(hash, clock.instant()),
+                () -> feeds.save(new FeedToken(user, hash, clock.instant())));
         return new FeedTokenView(token, "/api/calendar/mine.ics?token=" + token);
     }
 }

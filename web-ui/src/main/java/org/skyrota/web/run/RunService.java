@@ -79,6 +79,7 @@ public class RunService {
     private final AuditLog audit;
     private final JsonMapper json;
     private final TransactionTemplate tx;
+    private final java.time.Clock clock;
     private final ExecutorService workers;
     private final Map<Long, Future<?>> futures = new ConcurrentHashMap<>();
     private final Map<Long, Cancellation> cancellations = new ConcurrentHashMap<>();
@@ -87,7 +88,8 @@ public class RunService {
 
     RunService(PlannerRunRepository runs, PlanRevisionRepository revisions, PlanInputs inputs, PlannerConfig planners,
                RunEvents events, AuditLog audit, JsonMapper json, PlatformTransactionManager transactions,
-               ConditionsClosures conditions, SiteRepository sites) {
+               ConditionsClosures conditions, SiteRepository sites, java.time.Clock clock) {
+        this.clock = clock;
         this.conditions = conditions;
         this.runs = runs;
         this.sites = sites;
@@ -253,7 +255,7 @@ public class RunService {
                 if (r.getState() != RunState.QUEUED) {
                     return null;
                 }
-                r.start(Instant.now());
+                r.start(clock.instant());
                 return r;
             });
             if (run == null) {
@@ -357,7 +359,7 @@ public class RunService {
         draft.setRunId(id);
         revisions.saveAndFlush(draft);
         long placed = result.planned().size();
-        run.end(RunState.FINISHED, Instant.now(), result.score().toString(),
+        run.end(RunState.FINISHED, clock.instant(), result.score().toString(),
                 "placed " + placed + " of " + (placed + result.leftOut().size()) + " visits"
                         + (result.hardViolations().isEmpty() ? "" : "; hard rules broken: " + result.hardViolations().size())
                         + (fed.isEmpty() ? "" : "; telescope nights closed by conditions feeds: " + fed.size())
@@ -371,7 +373,7 @@ public class RunService {
             tx.executeWithoutResult(status -> {
                 PlannerRun r = find(id);
                 if (r.getState().isActive()) {
-                    r.end(how, Instant.now(), score, message);
+                    r.end(how, clock.instant(), score, message);
                 }
             });
         } catch (OptimisticLockingFailureException e) {
@@ -416,7 +418,7 @@ public class RunService {
     int failInterrupted() {
         Integer n = tx.execute(status -> {
             List<PlannerRun> stale = runs.findByStateIn(List.of(RunState.QUEUED, RunState.RUNNING));
-            stale.forEach(r -> r.end(RunState.FAILED, Instant.now(), null,
+            stale.forEach(r -> r.end(RunState.FAILED, clock.instant(), null,
                     "The server stopped while this run was " + r.getState().apiName() + "; start it again"));
             return stale.size();
         });

@@ -1,6 +1,6 @@
 package org.skyrota.web.system;
 
-import java.time.Instant;
+import java.time.Clock;
 
 import org.springframework.security.core.Authentication;
 import org.springframework.security.core.context.SecurityContextHolder;
@@ -20,7 +20,10 @@ public class AuditLog {
     private final AuditEventRepository events;
     private final JsonMapper json;
 
-    AuditLog(AuditEventRepository events, JsonMapper json) {
+    private final Clock clock;
+
+    AuditLog(AuditEventRepository events, JsonMapper json, Clock clock) {
+        this.clock = clock;
         this.events = events;
         this.json = json;
     }
@@ -31,7 +34,7 @@ public class AuditLog {
      */
     @Transactional(propagation = Propagation.MANDATORY)
     public void record(String action, String entityType, long entityId, Object before, Object after) {
-        events.save(new AuditEvent(Instant.now(), actor(), action, entityType, entityId,
+        events.save(new AuditEvent(clock.instant(), actor(), action, entityType, entityId,
                 before == null ? null : json.writeValueAsString(before),
                 after == null ? null : json.writeValueAsString(after)));
     }

@@ -62,7 +62,7 @@ public abstract class StoredEntity {
 
     /** Microseconds: what H2 and PostgreSQL keep, so that the answer to a write equals what a later read gives. */
     private static Instant now() {
-        return Instant.now().truncatedTo(ChronoUnit.MICROS);
+        return ServerClock.currentInstant().truncatedTo(ChronoUnit.MICROS);
     }
 
     @PrePersist

@@ -173,6 +173,9 @@ class RoleEndpointMatrixTest {
 
                 // Telescope API tokens and observation reports
                 new Row("POST", "/api/tokens", "/api/tokens", "{}", "403 403 403 403 400 403 403 401 403", "empty body: 400"),
+                // The server's clock: read by everyone signed in, moved forward by an admin (this test's clock is settable).
+                new Row("GET", "/api/clock", "/api/clock", null, SIGNED_IN_READ, ""),
+                new Row("PUT", "/api/clock", "/api/clock", "{}", "403 403 403 403 400 403 403 401 403", "empty body: 400"),
                 new Row("GET", "/api/tokens", "/api/tokens", null, ADMIN_READ, ""),
                 new Row("DELETE", "/api/tokens/{id}", "/api/tokens/999999", null, "403 403 403 403 404 403 403 401 403",
                         "unknown token: 404"),
