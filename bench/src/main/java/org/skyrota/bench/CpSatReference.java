@@ -21,7 +21,7 @@ import org.skyrota.planning.domain.Visit;
 /**
  * The exact reference: a time-indexed model of the same candidates solved by Google OR-Tools CP-SAT. One boolean
  * per visit and candidate; each visit at most once; at every grid minute of every telescope at most one running
- * visit; repeats of a request at least their spacing apart; each program within its grant. It maximises the medium
+ * visit; repeats of a request at least their spacing apart; each grant within its minutes. It maximises the medium
  * level (priority weight times nominal minutes of the placed visits); the soft level is not modelled.
  */
 final class CpSatReference {
@@ -35,8 +35,8 @@ final class CpSatReference {
         List<Visit> visits = schedule.visits();
         int grid = schedule.gridMinutes();
         Map<Long, List<Literal>> running = new HashMap<>();
-        Map<String, List<LinearArgument>> programTerms = new HashMap<>();
-        Map<String, List<Long>> programSizes = new HashMap<>();
+        Map<Integer, List<LinearArgument>> grantTerms = new HashMap<>();
+        Map<Integer, List<Long>> grantSizes = new HashMap<>();
         List<LinearArgument> objectiveVars = new ArrayList<>();
         List<Long> objectiveWeights = new ArrayList<>();
         Map<Visit, BoolVar[]> vars = new HashMap<>();
@@ -52,8 +52,8 @@ final class CpSatReference {
                 }
                 objectiveVars.add(x[c]);
                 objectiveWeights.add(v.priorityWeight() * v.nominalMinutes());
-                programTerms.computeIfAbsent(v.programId(), k -> new ArrayList<>()).add(x[c]);
-                programSizes.computeIfAbsent(v.programId(), k -> new ArrayList<>()).add((long) length);
+                grantTerms.computeIfAbsent(v.grantOf(p), k -> new ArrayList<>()).add(x[c]);
+                grantSizes.computeIfAbsent(v.grantOf(p), k -> new ArrayList<>()).add((long) length);
             }
             if (v.isPinned()) {
                 int pinned = candidates.indexOf(v.getPlacement());
@@ -87,10 +87,10 @@ final class CpSatReference {
             }
         }
         for (ProgramGrant g : schedule.grants()) {
-            List<LinearArgument> terms = programTerms.get(g.programId());
+            List<LinearArgument> terms = grantTerms.get(g.index());
             if (terms != null) {
                 model.addLessOrEqual(LinearExpr.weightedSum(terms.toArray(new LinearArgument[0]),
-                        programSizes.get(g.programId()).stream().mapToLong(Long::longValue).toArray()), g.grantMinutes());
+                        grantSizes.get(g.index()).stream().mapToLong(Long::longValue).toArray()), g.grantMinutes());
             }
         }
         model.maximize(LinearExpr.weightedSum(objectiveVars.toArray(new LinearArgument[0]),

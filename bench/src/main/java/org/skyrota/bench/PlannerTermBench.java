@@ -14,6 +14,7 @@ import org.skyrota.planning.domain.Visit;
 import org.skyrota.planning.greedy.GreedyDispatcher;
 import org.skyrota.planning.model.PlanningProblem;
 import org.skyrota.planning.sky.EngineSkyModel;
+import org.skyrota.planning.solver.PlanBound;
 import org.skyrota.planning.solver.PlanResult;
 import org.skyrota.planning.solver.Planner;
 import org.skyrota.planning.solver.Progress;
@@ -111,93 +112,18 @@ public final class PlannerTermBench {
                 greedyHard, boundRatio, urgencyHours, (double) finalWeighted / urgencyWeighted, grantBoundRatio);
     }
 
-    /**
-     * An upper bound on the priority-weighted time of any plan: the telescope time that any candidate can use at all
-     * (the union of candidate intervals per telescope), filled with the visits of highest weight per minute first as
-     * if visits could go anywhere and be split. Loose, but it shows how far above greedy any plan could possibly go.
-     */
+    /** An upper bound from telescope time: see {@link PlanBound#telescopeTime}. */
     static long weightedUpperBound(PreparedProblem p) {
-        java.util.Map<Integer, java.util.TreeMap<Integer, Integer>> busy = new java.util.HashMap<>();
-        List<Visit> visits = new ArrayList<>();
-        for (Visit v : p.schedule().visits()) {
-            if (v.candidateCount() > 0) {
-                visits.add(v);
-            }
-            for (var c : v.getCandidates()) {
-                busy.computeIfAbsent(c.telescopeIndex(), k -> new java.util.TreeMap<>())
-                        .merge(c.startMinute(), c.startMinute() + v.lengthOn(c.telescopeIndex()), Math::max);
-            }
-        }
-        long capacity = 0;
-        for (var intervals : busy.values()) {
-            int end = Integer.MIN_VALUE;
-            for (var e : intervals.entrySet()) {
-                int s = Math.max(e.getKey(), end);
-                if (e.getValue() > s) {
-                    capacity += e.getValue() - s;
-                    end = e.getValue();
-                }
-            }
-        }
-        visits.sort((a, b) -> Double.compare((double) b.priorityWeight(), (double) a.priorityWeight()));
-        long bound = 0;
-        for (Visit v : visits) {
-            long take = Math.min(capacity, v.nominalMinutes());
-            bound += take * v.priorityWeight();
-            capacity -= take;
-            if (capacity == 0) {
-                break;
-            }
-        }
-        return bound;
+        return PlanBound.telescopeTime(p);
     }
 
-    /**
-     * Another upper bound, from the grants instead of the telescope time: a program can at best fill its grant with
-     * its most valuable visits per granted minute (weighted time over the shortest length any candidate gives the
-     * visit), the last one split; a program whose visits all fit counts all of them. Grants are a hard rule, so no
-     * plan beats the sum over programs; programs without a grant count all their visits.
-     */
+    /** An upper bound from the grants: see {@link PlanBound#grants}. */
     static long grantUpperBound(PreparedProblem p) {
-        java.util.Map<String, Long> grants = new java.util.HashMap<>();
-        p.schedule().grants().forEach(g -> grants.put(g.programId(), g.grantMinutes()));
-        java.util.Map<String, List<Visit>> byProgram = new java.util.HashMap<>();
-        for (Visit v : p.schedule().visits()) {
-            if (v.candidateCount() > 0) {
-                byProgram.computeIfAbsent(v.programId(), k -> new ArrayList<>()).add(v);
-            }
-        }
-        double bound = 0;
-        for (var e : byProgram.entrySet()) {
-            java.util.Map<Visit, Integer> shortest = new java.util.HashMap<>();
-            for (Visit v : e.getValue()) {
-                shortest.put(v, v.getCandidates().stream().mapToInt(c -> v.lengthOn(c.telescopeIndex())).min()
-                        .orElseThrow());
-            }
-            List<Visit> visits = new ArrayList<>(e.getValue());
-            visits.sort((a, b) -> Double.compare((double) b.priorityWeight() * b.nominalMinutes() / shortest.get(b),
-                    (double) a.priorityWeight() * a.nominalMinutes() / shortest.get(a)));
-            double left = grants.getOrDefault(e.getKey(), Long.MAX_VALUE);
-            for (Visit v : visits) {
-                double share = Math.min(1.0, left / shortest.get(v));
-                bound += share * v.priorityWeight() * v.nominalMinutes();
-                left -= share * shortest.get(v);
-                if (left <= 0) {
-                    break;
-                }
-            }
-        }
-        return (long) Math.floor(bound);
+        return PlanBound.grants(p);
     }
 
     static long weighted(PreparedProblem p) {
-        long sum = 0;
-        for (Visit v : p.schedule().visits()) {
-            if (v.isPlaced()) {
-                sum += v.priorityWeight() * v.nominalMinutes();
-            }
-        }
-        return sum;
+        return PlanBound.weighted(p);
     }
 
     static long placedMinutes(PreparedProblem p) {

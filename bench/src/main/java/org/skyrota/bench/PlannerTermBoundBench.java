@@ -27,7 +27,7 @@ import org.skyrota.planning.solver.SolveOptions;
  * planner-term-bound: how much better than the greedy baseline any plan of the invented term could possibly be. The
  * CP-SAT model of {@link CpSatReference} is far too big to solve here (about 700,000 candidates), so this solves its
  * linear relaxation instead (each visit at most once, at most one running visit per telescope and grid minute, each
- * program within its grant; the repeat spacing is left out, which only loosens it) with OR-Tools' first-order LP
+ * grant within its minutes; the repeat spacing is left out, which only loosens it) with OR-Tools' first-order LP
  * solver PDLP, and turns the solver's dual values into a certified upper bound by weak duality: for any
  * non-negative multipliers y of the rows, the sum of y times each row's limit plus, per candidate, the part of its
  * value that the multiplied rows do not pay for, is at least the value of every plan. The bound therefore holds
@@ -68,10 +68,10 @@ public final class PlannerTermBoundBench {
             throw new IllegalStateException("OR-Tools has no PDLP solver in this build");
         }
         List<MPConstraint> rows = new ArrayList<>();
-        Map<String, Integer> grantRows = new HashMap<>();
+        Map<Integer, Integer> grantRows = new HashMap<>();
         for (ProgramGrant g : schedule.grants()) {
-            grantRows.put(g.programId(), rows.size());
-            rows.add(solver.makeConstraint(0, g.grantMinutes(), "grant " + g.programId()));
+            grantRows.put(g.index(), rows.size());
+            rows.add(solver.makeConstraint(0, g.grantMinutes(), "grant " + g.index()));
         }
         Map<Long, Integer> slotRows = new HashMap<>();
         MPObjective objective = solver.objective();
@@ -88,8 +88,9 @@ public final class PlannerTermBoundBench {
             int visitRow = rows.size();
             MPConstraint once = solver.makeConstraint(0, 1, "once " + v.id());
             rows.add(once);
-            MPConstraint grant = grantRows.containsKey(v.programId()) ? rows.get(grantRows.get(v.programId())) : null;
             for (Placement c : v.getCandidates()) {
+                Integer grantRow = grantRows.get(v.grantOf(c));
+                MPConstraint grant = grantRow == null ? null : rows.get(grantRow);
                 MPVariable x = solver.makeNumVar(0, 1, "");
                 int length = v.lengthOn(c.telescopeIndex());
                 double value = (double) v.priorityWeight() * v.nominalMinutes();
@@ -110,8 +111,7 @@ public final class PlannerTermBoundBench {
                     grant.setCoefficient(x, length);
                 }
                 objective.setCoefficient(x, value);
-                columns.add(new Column(value, visitRow, slots, grant == null ? -1 : grantRows.get(v.programId()),
-                        length));
+                columns.add(new Column(value, visitRow, slots, grantRow == null ? -1 : grantRow, length));
             }
         }
         solver.setTimeLimit(Math.round(timeLimitSeconds * 1000));

@@ -108,12 +108,13 @@ public final class SkyrotaConstraints implements ConstraintProvider {
     }
 
     Constraint programOverGrant(ConstraintFactory factory) {
-        // A program may not use more telescope minutes than it was granted; the penalty is the excess.
+        // A program may not use more telescope minutes than a grant holds; each visit pays from the grant its
+        // placement names (a pin no grant covers pays from one of no minutes). The penalty is the excess.
         return factory.forEach(Visit.class)
-                .groupBy(Visit::programId, sum(Visit::placedMinutes))
-                .join(ProgramGrant.class, Joiners.equal((program, minutes) -> program, ProgramGrant::programId))
-                .filter((program, minutes, grant) -> minutes > grant.grantMinutes())
-                .penalizeConfigurableLong((program, minutes, grant) -> minutes - grant.grantMinutes())
+                .groupBy(Visit::grantIndex, sum(Visit::placedMinutes))
+                .join(ProgramGrant.class, Joiners.equal((grant, minutes) -> grant, ProgramGrant::index))
+                .filter((index, minutes, grant) -> minutes > grant.grantMinutes())
+                .penalizeConfigurableLong((index, minutes, grant) -> minutes - grant.grantMinutes())
                 .asConstraint(RuleNames.PROGRAM_OVER_GRANT);
     }
 

@@ -43,6 +43,7 @@ final class Fixtures {
         private Placement placement;
         private Placement published;
         private boolean pinned;
+        private int grant;
 
         VisitBuilder(String id) {
             this.id = id;
@@ -110,6 +111,12 @@ final class Fixtures {
             return this;
         }
 
+        /** The grant (index into the schedule's grants) its placement pays from; 0 unless given. */
+        VisitBuilder grant(int index) {
+            grant = index;
+            return this;
+        }
+
         Visit build() {
             List<Placement> candidates = placement == null ? List.of() : List.of(placement);
             int n = candidates.size();
@@ -125,6 +132,9 @@ final class Fixtures {
             }
             Visit v = new Visit(id, request, 0, program, grantShare, programWeight, priority, priority, length, gap,
                     new int[] {length, length}, new int[] {overhead, overhead}, candidates, a, s, u, f);
+            int[] g = new int[n];
+            java.util.Arrays.fill(g, grant);
+            v.setGrants(g);
             v.setPlacement(placement);
             v.setPublished(published);
             v.setPinned(pinned);

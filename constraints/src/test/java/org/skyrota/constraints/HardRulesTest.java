@@ -144,7 +144,7 @@ class HardRulesTest {
         void aProgramOverItsGrantIsPenalizedByTheExcessMinutes() {
             Visit a = visit("a").program("club", 0.5).length(60).at(at(0, 0)).build();
             Visit b = visit("b").program("club", 0.5).length(60).at(at(0, 60)).build();
-            ProgramGrant grant = new ProgramGrant("club", 90, 0.5);
+            ProgramGrant grant = new ProgramGrant(0, "club", 90, 0.5, "club's grant");
             verifier.verifyThat(SkyrotaConstraints::programOverGrant).given(a, b, grant).penalizesBy(30);
         }
 
@@ -152,8 +152,31 @@ class HardRulesTest {
         void aProgramWithinItsGrantIsNot() {
             Visit a = visit("a").program("club", 0.5).length(60).at(at(0, 0)).build();
             Visit unplaced = visit("unplaced").program("club", 0.5).length(60).build();
-            ProgramGrant grant = new ProgramGrant("club", 90, 0.5);
+            ProgramGrant grant = new ProgramGrant(0, "club", 90, 0.5, "club's grant");
             verifier.verifyThat(SkyrotaConstraints::programOverGrant).given(a, unplaced, grant).penalizesBy(0);
+        }
+
+        @Test
+        void eachGrantHoldsOnlyWhatPaysFromItNotThePoolOfTheProgram() {
+            // 60 min on each of two telescopes, a 60-min grant on each: within both, though 120 > either alone.
+            Visit onFirst = visit("onFirst").program("club", 0.5).length(60).grant(0).at(at(0, 0)).build();
+            Visit onSecond = visit("onSecond").program("club", 0.5).length(60).grant(1).at(at(1, 0)).build();
+            ProgramGrant first = new ProgramGrant(0, "club", 60, 0.5, "60 min on telescope 0");
+            ProgramGrant second = new ProgramGrant(1, "club", 60, 0.5, "60 min on telescope 1");
+            verifier.verifyThat(SkyrotaConstraints::programOverGrant).given(onFirst, onSecond, first, second)
+                    .penalizesBy(0);
+            // Both on the first telescope's grant: 60 minutes over it, whatever the second still holds.
+            Visit alsoOnFirst = visit("alsoOnFirst").program("club", 0.5).length(60).grant(0).at(at(0, 60)).build();
+            verifier.verifyThat(SkyrotaConstraints::programOverGrant).given(onFirst, alsoOnFirst, first, second)
+                    .penalizesBy(60);
+        }
+
+        @Test
+        void aPinNoGrantCoversIsOverByItsWholeLength() {
+            Visit pinned = visit("pinned").program("club", 0.5).length(45).grant(1).at(at(0, 0)).pinned().build();
+            ProgramGrant grant = new ProgramGrant(0, "club", 600, 0.5, "club's grant");
+            ProgramGrant none = new ProgramGrant(1, "club", 0, 0.5, "no grant of program club for that telescope and night");
+            verifier.verifyThat(SkyrotaConstraints::programOverGrant).given(pinned, grant, none).penalizesBy(45);
         }
     }
 }

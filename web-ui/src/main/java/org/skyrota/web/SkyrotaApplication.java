@@ -5,6 +5,7 @@ import org.springframework.boot.autoconfigure.SpringBootApplication;
 
 /** Starts the Skyrota server. */
 @SpringBootApplication
+@org.springframework.scheduling.annotation.EnableScheduling
 public class SkyrotaApplication {
 
     public static void main(String[] args) {

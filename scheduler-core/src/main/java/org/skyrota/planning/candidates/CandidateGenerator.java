@@ -24,6 +24,7 @@ import org.skyrota.planning.domain.Visit;
 import org.skyrota.planning.model.Assignment;
 import org.skyrota.planning.model.Closure;
 import org.skyrota.planning.model.Instrument;
+import org.skyrota.planning.model.Occupied;
 import org.skyrota.planning.model.ObservingLimits;
 import org.skyrota.planning.model.PlanningProblem;
 import org.skyrota.planning.model.Program;
@@ -70,14 +71,12 @@ public final class CandidateGenerator {
         int grid = problem.gridMinutes();
         PlacementRegistry registry = new PlacementRegistry(epoch, telescopes, sites, siteIndex);
 
-        double totalGrant = problem.programs().stream().mapToDouble(Program::grantedHours).sum();
         Map<String, Program> programs = new LinkedHashMap<>();
-        List<ProgramGrant> grants = new ArrayList<>();
         for (Program p : problem.programs()) {
             programs.put(p.id(), p);
-            grants.add(new ProgramGrant(p.id(), Math.round(p.grantedHours() * 60),
-                    totalGrant == 0 ? 0 : p.grantedHours() / totalGrant));
         }
+        GrantBook grantBook = new GrantBook(problem.grantsInForce(), programs);
+        List<ProgramGrant> grants = grantBook.facts();
 
         List<ClosedNight> closedNights = new ArrayList<>();
         for (Closure c : problem.closures()) {
@@ -100,17 +99,25 @@ public final class CandidateGenerator {
         }
 
         List<Request> requests = problem.requests();
-        for (Request r : requests) {
-            if (!programs.containsKey(r.programId())) {
-                throw new IllegalArgumentException("request " + r.id() + " belongs to unknown program '" + r.programId() + "'");
-            }
-        }
         Map<String, VisitStats> stats = new ConcurrentHashMap<>();
         Map<String, List<List<SkyWindow>>> prefetched = prefetch(problem);
+        Map<String, List<Occupied>> occupied = new HashMap<>();
+        for (Occupied o : problem.occupied()) {
+            occupied.computeIfAbsent(o.telescopeId(), k -> new ArrayList<>()).add(o);
+        }
         List<List<Visit>> perRequest = IntStream.range(0, requests.size()).parallel()
-                .mapToObj(i -> new RequestCandidates(problem, requests.get(i), registry, grid,
-                        programs.get(requests.get(i).programId()), grants, pins, published, stats,
-                        prefetched.get(requests.get(i).id())).build())
+                .mapToObj(i -> {
+                    Request r = requests.get(i);
+                    RequestCandidates candidates = new RequestCandidates(problem, r, registry, grid,
+                            programs.get(r.programId()), grantBook, pins, published, stats, prefetched.get(r.id()),
+                            occupied);
+                    try {
+                        return candidates.build();
+                    } catch (RuntimeException e) {
+                        // One request the sky or its data cannot serve is left out with the reason; the run goes on.
+                        return candidates.unprepared(e);
+                    }
+                })
                 .toList();
         List<Visit> visits = new ArrayList<>();
         Map<String, Request> requestByVisit = new HashMap<>();
@@ -243,6 +250,8 @@ public final class CandidateGenerator {
         private final int grid;
         private final Program program;
         private final double grantShare;
+        private final GrantBook grants;
+        private final Map<String, List<Occupied>> occupied;
         private final Map<String, Assignment> pins;
         private final Map<String, Assignment> published;
         private final Map<String, VisitStats> stats;
@@ -253,15 +262,17 @@ public final class CandidateGenerator {
         private Duration spacing = Duration.ZERO;
 
         RequestCandidates(PlanningProblem problem, Request request, PlacementRegistry registry, int grid, Program program,
-                          List<ProgramGrant> grants, Map<String, Assignment> pins, Map<String, Assignment> published,
-                          Map<String, VisitStats> stats, List<List<SkyWindow>> prefetched) {
+                          GrantBook grants, Map<String, Assignment> pins, Map<String, Assignment> published,
+                          Map<String, VisitStats> stats, List<List<SkyWindow>> prefetched,
+                          Map<String, List<Occupied>> occupied) {
             this.problem = problem;
             this.request = request;
             this.registry = registry;
             this.grid = grid;
             this.program = program;
-            this.grantShare = grants.stream().filter(g -> g.programId().equals(program.id())).findFirst()
-                    .map(ProgramGrant::grantShare).orElse(0.0);
+            this.grants = grants;
+            this.occupied = occupied;
+            this.grantShare = grants.share(request.programId());
             this.pins = pins;
             this.published = published;
             this.stats = stats;
@@ -282,7 +293,32 @@ public final class CandidateGenerator {
             }
         }
 
+        /**
+         * The request's visits with no candidates, each saying why the request could not be prepared: its data or
+         * the sky could not serve it, and the run goes on without it.
+         */
+        List<Visit> unprepared(RuntimeException e) {
+            String why = e.getMessage() == null || e.getMessage().isBlank() ? "its data could not be read"
+                    : e.getMessage();
+            int n = registry.telescopes().size();
+            int[] length = new int[n];
+            java.util.Arrays.fill(length, grid);
+            List<Visit> visits = new ArrayList<>();
+            for (int k = 0; k < request.repeats(); k++) {
+                String visitId = request.visitId(k);
+                visits.add(new Visit(visitId, request.id(), k, request.programId(), grantShare,
+                        program == null ? 1.0 : program.weight(), request.priority(), priorityWeight(request.priority()),
+                        grid, 0, length, new int[n], List.of(), new int[0], new int[0], new int[0], new byte[0]));
+                stats.put(visitId, VisitStats.unprepared(request.filters(), why));
+            }
+            return visits;
+        }
+
         List<Visit> build() {
+            if (program == null) {
+                throw new IllegalArgumentException("it belongs to program " + request.programId()
+                        + ", which is not among the programs planned");
+            }
             List<Telescope> telescopes = registry.telescopes();
             int n = telescopes.size();
             int[] length = new int[n];
@@ -323,6 +359,8 @@ public final class CandidateGenerator {
             for (Site site : registry.sites()) {
                 firstMinute = Math.min(firstMinute, noonMinute(site, from));
             }
+            // Nothing starts before now: the first possible minute is then now, rounded up to the minute.
+            firstMinute = Math.max(firstMinute, notBeforeMinute());
 
             List<Visit> visits = new ArrayList<>();
             int rank = 0;
@@ -343,6 +381,32 @@ public final class CandidateGenerator {
             return visits;
         }
 
+        /** The first whole minute at or after the problem's "now", or the smallest minute when it has none. */
+        private long notBeforeMinute() {
+            Instant notBefore = problem.notBefore();
+            if (notBefore == null) {
+                return Long.MIN_VALUE;
+            }
+            long seconds = notBefore.getEpochSecond() - registry.instantOf(0).getEpochSecond();
+            return Math.floorDiv(seconds + (notBefore.getNano() > 0 ? 1 : 0) + 59, 60);
+        }
+
+        /** Whether a visit of {@code length} minutes from {@code start} on telescope {@code t} overlaps taken time. */
+        private boolean overlapsOccupied(int t, int start, int length) {
+            List<Occupied> taken = occupied.get(registry.telescopes().get(t).id());
+            if (taken == null) {
+                return false;
+            }
+            Instant s = registry.instantOf(start);
+            Instant e = registry.instantOf(start + length);
+            for (Occupied o : taken) {
+                if (s.isBefore(o.end()) && o.start().isBefore(e)) {
+                    return true;
+                }
+            }
+            return false;
+        }
+
         private int noonMinute(Site site, LocalDate night) {
             return registry.minuteOf(night.atTime(12, 0).atZone(site.nightZone()).toInstant());
         }
@@ -355,6 +419,7 @@ public final class CandidateGenerator {
             Map<Placement, int[]> costs = new HashMap<>();
             int windowNights = 0;
             int closedWindowNights = 0;
+            int ungrantedWindowNights = 0;
             long observable = 0;
             long longest = 0;
             int nightsConsidered = 0;
@@ -370,6 +435,7 @@ public final class CandidateGenerator {
                 for (LocalDate night = siteFrom; !night.isAfter(to); night = night.plusDays(1)) {
                     boolean nightCounted = false;
                     boolean nightOpen = false;
+                    boolean nightGranted = false;
                     List<int[]> nightCandidates = new ArrayList<>();
                     for (int t = 0; t < telescopes.size(); t++) {
                         Telescope telescope = telescopes.get(t);
@@ -397,12 +463,17 @@ public final class CandidateGenerator {
                             continue;
                         }
                         nightOpen = true;
+                        int grant = grants.pays(request.programId(), telescope, night);
+                        if (grant < 0) {
+                            continue;
+                        }
+                        nightGranted = true;
                         for (SkyWindow w : usable) {
                             int windowStart = registry.minuteOf(w.start()) + (w.start().getEpochSecond() % 60 == 0 ? 0 : 1);
                             int first = ceilTo((int) Math.max(windowStart, lowerMinute), step);
                             int lastStart = registry.minuteOf(w.end()) - length[t];
                             for (int m = first; m <= lastStart; m += step) {
-                                if (tooCloseToObserved(m)) {
+                                if (tooCloseToObserved(m) || overlapsOccupied(t, m, length[t])) {
                                     continue;
                                 }
                                 SkyConditions c = conditionsAt(s, site, m + length[t] / 2);
@@ -411,12 +482,15 @@ public final class CandidateGenerator {
                                     continue;
                                 }
                                 nightCandidates.add(new int[] {t, m, (int) Math.round(c.airmass() * 1000),
-                                        (int) Math.round(100 * Math.max(0, site.darkSkyZenithVMag() - c.skyBrightnessVMag()))});
+                                        (int) Math.round(100 * Math.max(0, site.darkSkyZenithVMag() - c.skyBrightnessVMag())),
+                                        grant});
                             }
                         }
                     }
                     if (nightCounted && !nightOpen) {
                         closedWindowNights++;
+                    } else if (nightCounted && !nightGranted) {
+                        ungrantedWindowNights++;
                     }
                     int bestAirmass = nightCandidates.stream().mapToInt(c -> c[2]).min().orElse(0);
                     int nightIndex = (int) (night.toEpochDay() - request.earliestNight().toEpochDay());
@@ -424,7 +498,7 @@ public final class CandidateGenerator {
                     for (int[] c : nightCandidates) {
                         Placement p = registry.get(c[0], c[1]);
                         int airmassCost = Math.max(0, (c[2] - bestAirmass) / 10);
-                        costs.put(p, new int[] {airmassCost, c[3], urgency, 0});
+                        costs.put(p, new int[] {airmassCost, c[3], urgency, 0, c[4]});
                     }
                 }
             }
@@ -441,18 +515,21 @@ public final class CandidateGenerator {
             int[] skyCost = new int[c];
             int[] urgency = new int[c];
             byte[] flags = new byte[c];
+            int[] grantOf = new int[c];
             for (int i = 0; i < c; i++) {
                 int[] v = costs.get(candidates.get(i));
                 airmass[i] = v[0];
                 skyCost[i] = v[1];
                 urgency[i] = v[2];
                 flags[i] = (byte) v[3];
+                grantOf[i] = v[4];
             }
             Visit visit = new Visit(visitId, request.id(), k, request.programId(), grantShare, program.weight(),
                     request.priority(),
                     priorityWeight(request.priority()), nominal, gapMinutes, length, overhead, candidates, airmass,
                     skyCost, urgency, flags);
             visit.setHourAngles(hourAngles(candidates));
+            visit.setGrants(grantOf);
             if (pubPlacement != null || pub != null) {
                 visit.setPublished(pubPlacement != null ? pubPlacement : registry.get(telescopeIndex(pub.telescopeId()),
                         ceilTo(registry.minuteOf(pub.start()), grid)));
@@ -462,7 +539,7 @@ public final class CandidateGenerator {
                 visit.setPinned(true);
             }
             stats.put(visitId, new VisitStats(eligibleCount, nightsConsidered, windowNights, closedWindowNights,
-                    observable, longest, nominal, request.filters()));
+                    observable, longest, nominal, request.filters(), ungrantedWindowNights, null));
             return visit;
         }
 
@@ -517,6 +594,14 @@ public final class CandidateGenerator {
                                           boolean pin) {
             int t = telescopeIndex(a.telescopeId());
             int start = ceilTo(registry.minuteOf(a.start()), grid);
+            if (!pin && (start < notBeforeMinute() || start < 0)) {
+                // A published place that is already past (or before the horizon) is no anchor for stability.
+                return null;
+            }
+            if (pin && start < 0) {
+                throw new IllegalArgumentException("its visit " + a.visitId() + " is pinned at " + a.start()
+                        + ", before the nights planned");
+            }
             Placement p = registry.get(t, start);
             if (costs.containsKey(p)) {
                 return p;
@@ -545,11 +630,12 @@ public final class CandidateGenerator {
                     : c.sunSeparationDeg() < request.limits().minSunSeparationDeg()) {
                 flags |= Visit.SUN_VIOLATION;
             }
-            if (!pin && (flags != 0 || closed(telescope, night))) {
+            int grant = grants.pays(request.programId(), telescope, night);
+            if (!pin && (flags != 0 || grant < 0 || closed(telescope, night) || overlapsOccupied(t, start, length[t]))) {
                 return null;
             }
             int sky = (int) Math.round(100 * Math.max(0, site.darkSkyZenithVMag() - c.skyBrightnessVMag()));
-            costs.put(p, new int[] {0, sky, 0, flags});
+            costs.put(p, new int[] {0, sky, 0, flags, grant < 0 ? grants.noGrant(request.programId()) : grant});
             return p;
         }
 

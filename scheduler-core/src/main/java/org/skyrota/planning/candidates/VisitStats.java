@@ -13,7 +13,16 @@ import java.util.List;
  * @param longestWindowMinutes   the longest single window seen (long enough or not)
  * @param neededMinutes          the visit's length on its fastest eligible telescope
  * @param filters                the filters of its plan
+ * @param ungrantedWindowNights  of the open site-nights with a window, those where no grant of its program pays for
+ *                               any telescope that could take it
+ * @param problem                why its request could not be prepared at all (bad data), or null
  */
 public record VisitStats(int eligibleTelescopes, int nightsConsidered, int windowNights, int closedWindowNights,
-                         long observableMinutes, long longestWindowMinutes, int neededMinutes, List<String> filters) {
+                         long observableMinutes, long longestWindowMinutes, int neededMinutes, List<String> filters,
+                         int ungrantedWindowNights, String problem) {
+
+    /** What is known of a visit whose request could not be prepared: only why. */
+    public static VisitStats unprepared(List<String> filters, String problem) {
+        return new VisitStats(0, 0, 0, 0, 0, 0, 0, filters, 0, problem);
+    }
 }

@@ -47,6 +47,8 @@ public class Visit {
     private byte[] flags;
     /** The target's hour angle at each candidate's start, degrees; null when no telescope's mount needs it. */
     private float[] hourAngleAtStart;
+    /** The grant (index into the schedule's grants) each candidate pays from; null when the schedule has none. */
+    private int[] grantOfCandidate;
 
     private Placement published;
     @PlanningPin
@@ -147,6 +149,28 @@ public class Visit {
     }
 
     /**
+     * The grant each candidate pays from, as an index into the schedule's {@link Schedule#grants()} (same order as the
+     * candidates); null when the visit's schedule has no grants.
+     */
+    public void setGrants(int[] grantByCandidate) {
+        if (grantByCandidate != null && grantByCandidate.length != candidateIds.length) {
+            throw new IllegalArgumentException("grants of visit " + id + " must have " + candidateIds.length + " entries");
+        }
+        this.grantOfCandidate = grantByCandidate;
+    }
+
+    /** The grant the current placement pays from (an index into the schedule's grants), or -1 when unplaced. */
+    public int grantIndex() {
+        return placement == null || grantOfCandidate == null ? -1 : grantOfCandidate[candidateIndex];
+    }
+
+    /** The grant candidate {@code p} would pay from, or -1 when it is not a candidate or the schedule has no grants. */
+    public int grantOf(Placement p) {
+        int i = p == null || grantOfCandidate == null ? -1 : Arrays.binarySearch(candidateIds, p.id());
+        return i < 0 ? -1 : grantOfCandidate[i];
+    }
+
+    /**
      * A fresh copy of this visit (unplaced, not pinned, nothing published) without the candidates {@code drop} rejects,
      * for re-planning without asking the sky again.
      */
@@ -179,6 +203,13 @@ public class Visit {
                 h[j] = hourAngleAtStart[indexes.get(j)];
             }
             copy.setHourAngles(h);
+        }
+        if (grantOfCandidate != null) {
+            int[] g = new int[n];
+            for (int j = 0; j < n; j++) {
+                g[j] = grantOfCandidate[indexes.get(j)];
+            }
+            copy.setGrants(g);
         }
         return copy;
     }

@@ -27,23 +27,23 @@ public final class LeftOutExplainer {
     public Map<String, String> explain(PreparedProblem prepared) {
         List<Visit> visits = prepared.schedule().visits();
         Map<Integer, List<Visit>> byTelescope = new HashMap<>();
-        Map<String, Long> programMinutes = new HashMap<>();
+        Map<Integer, Long> grantMinutes = new HashMap<>();
         Map<String, List<Visit>> byRequest = new HashMap<>();
         for (Visit v : visits) {
             byRequest.computeIfAbsent(v.requestId(), k -> new ArrayList<>()).add(v);
             if (v.isPlaced()) {
                 byTelescope.computeIfAbsent(v.telescopeIndex(), k -> new ArrayList<>()).add(v);
-                programMinutes.merge(v.programId(), (long) v.placedMinutes(), Long::sum);
+                grantMinutes.merge(v.grantIndex(), (long) v.placedMinutes(), Long::sum);
             }
         }
         byTelescope.values().forEach(l -> l.sort(Comparator.comparingInt(Visit::startMinute)));
-        Map<String, ProgramGrant> grants = new HashMap<>();
-        prepared.schedule().grants().forEach(g -> grants.put(g.programId(), g));
+        Map<Integer, ProgramGrant> grants = new HashMap<>();
+        prepared.schedule().grants().forEach(g -> grants.put(g.index(), g));
 
         Map<String, String> reasons = new LinkedHashMap<>();
         for (Visit v : visits) {
             if (!v.isPlaced()) {
-                String reason = reason(prepared, v, byTelescope, programMinutes, grants, byRequest);
+                String reason = reason(prepared, v, byTelescope, grantMinutes, grants, byRequest);
                 if (prepared.requestByVisit().get(v.id()).target().solar()) {
                     reason += ". " + SolarSafety.CAUTION;
                 }
@@ -54,12 +54,15 @@ public final class LeftOutExplainer {
     }
 
     private String reason(PreparedProblem prepared, Visit v, Map<Integer, List<Visit>> byTelescope,
-                          Map<String, Long> programMinutes, Map<String, ProgramGrant> grants,
+                          Map<Integer, Long> grantMinutes, Map<Integer, ProgramGrant> grants,
                           Map<String, List<Visit>> byRequest) {
         Request r = prepared.requestByVisit().get(v.id());
         VisitStats s = prepared.statsByVisit().get(v.id());
         String filters = String.join(", ", s.filters());
         String range = r.earliestNight() + " and " + r.latestNight();
+        if (s.problem() != null) {
+            return "its request cannot be planned: " + s.problem();
+        }
         if (s.eligibleTelescopes() == 0) {
             return r.target().solar()
                     ? "no telescope has an instrument with a certified solar filter and the " + filters + " filter"
@@ -87,8 +90,13 @@ public final class LeftOutExplainer {
             if (s.closedWindowNights() >= s.windowNights()) {
                 return "observable only on closed nights between " + range;
             }
+            if (s.closedWindowNights() + s.ungrantedWindowNights() >= s.windowNights()) {
+                return String.format(Locale.ROOT, "observable on %d night%s between %s, but no grant of program %s pays"
+                        + " for a telescope that could take it on %s", s.windowNights(), s.windowNights() == 1 ? "" : "s",
+                        range, programName(prepared, v), s.closedWindowNights() == 0 ? "those nights" : "the open ones");
+            }
             String spacing = r.observedStarts().isEmpty() ? "its repeat spacing"
-                    : "its repeat spacing from the repeats already observed";
+                    : "its repeat spacing from the repeats already observed or planned on other nights";
             String closed = s.closedWindowNights() == 0 ? ""
                     : String.format(Locale.ROOT, " (%d of them closed)", s.closedWindowNights());
             return String.format(Locale.ROOT, "observable on %d night%s%s between %s, but on the open ones only too close"
@@ -116,11 +124,27 @@ public final class LeftOutExplainer {
         }
         String observable = String.format(Locale.ROOT, "observable %s on %d night%s", hours(s.observableMinutes()),
                 s.windowNights(), s.windowNights() == 1 ? "" : "s");
-        ProgramGrant grant = grants.get(v.programId());
-        long used = programMinutes.getOrDefault(v.programId(), 0L);
-        if (grant != null && used + v.nominalMinutes() > grant.grantMinutes()) {
-            return String.format(Locale.ROOT, "%s, but program %s has used %s of its %s grant", observable,
-                    v.programId(), hours(used), hours(grant.grantMinutes()));
+        // Every grant that pays for one of its candidates is full: the program's time there is spent.
+        TreeSet<String> full = new TreeSet<>();
+        boolean roomInAGrant = false;
+        for (Placement p : v.getCandidates()) {
+            int g = v.grantOf(p);
+            ProgramGrant grant = grants.get(g);
+            if (grant == null) {
+                roomInAGrant = true;
+                break;
+            }
+            long used = grantMinutes.getOrDefault(g, 0L);
+            if (used + v.lengthOn(p.telescopeIndex()) > grant.grantMinutes()) {
+                full.add(grant.label() + " (" + hours(used) + " of " + hours(grant.grantMinutes()) + " used)");
+            } else {
+                roomInAGrant = true;
+                break;
+            }
+        }
+        if (!roomInAGrant && !full.isEmpty()) {
+            return observable + ", but program " + programName(prepared, v) + " has no grant time left there: "
+                    + String.join("; ", full);
         }
         if (free > 0) {
             for (Visit sibling : byRequest.get(v.requestId())) {
@@ -141,6 +165,11 @@ public final class LeftOutExplainer {
         }
         return observable + ", but those slots went to visits of equal or lower priority that use the time better ("
                 + sample(other) + ")";
+    }
+
+    private static String programName(PreparedProblem prepared, Visit v) {
+        return prepared.problem().programs().stream().filter(p -> p.id().equals(v.programId()))
+                .map(org.skyrota.planning.model.Program::name).findFirst().orElse(v.programId());
     }
 
     private static List<Visit> overlapping(List<Visit> sorted, int start, int end) {

@@ -58,6 +58,24 @@ public final class GreedyDispatcher {
         return new GreedyDispatcher(true, true);
     }
 
+    /**
+     * Fits the unplaced visits around those already placed, which stay where they are (a re-plan that starts from
+     * the published plan fills the gaps this way).
+     */
+    public void fill(PreparedProblem prepared) {
+        Map<Integer, TreeMap<Integer, Integer>> taken = new HashMap<>();
+        for (Visit v : prepared.schedule().visits()) {
+            if (v.isPlaced() && !v.isPinned()) {
+                taken.computeIfAbsent(v.telescopeIndex(), k -> new TreeMap<>()).put(v.startMinute(), v.endMinute());
+            }
+        }
+        if (taken.isEmpty()) {
+            dispatch(prepared);
+        } else {
+            walk(prepared, v -> true, taken);
+        }
+    }
+
     public void dispatch(PreparedProblem prepared) {
         if (!grantAware) {
             walk(prepared, v -> true, new HashMap<>());
@@ -88,20 +106,24 @@ public final class GreedyDispatcher {
                         += v.nominalMinutes();
             }
         }
-        Map<String, Integer> threshold = new HashMap<>();
+        Map<String, Long> granted = new HashMap<>();
         for (ProgramGrant g : schedule.grants()) {
-            long[] minutes = minutesByPriority.getOrDefault(g.programId(), new long[6]);
+            granted.merge(g.programId(), g.grantMinutes(), Long::sum);
+        }
+        Map<String, Integer> threshold = new HashMap<>();
+        granted.forEach((program, grantMinutes) -> {
+            long[] minutes = minutesByPriority.getOrDefault(program, new long[6]);
             long sum = 0;
             int lowest = 1;
             for (int priority = 5; priority >= 1; priority--) {
                 sum += minutes[priority];
-                if (sum > g.grantMinutes()) {
+                if (sum > grantMinutes) {
                     lowest = priority;
                     break;
                 }
             }
-            threshold.put(g.programId(), lowest);
-        }
+            threshold.put(program, lowest);
+        });
         return threshold;
     }
 
@@ -116,11 +138,11 @@ public final class GreedyDispatcher {
         Map<Integer, List<Visit>> startsAt = new HashMap<>();
         Map<Integer, Map<Integer, List<Visit>>> byTelescopeMinute = new HashMap<>();
         int[] busyUntil = new int[telescopes];
-        Map<String, Long> programUsed = new HashMap<>();
+        Map<Integer, Long> grantUsed = new HashMap<>();
         Map<String, List<Visit>> placedByRequest = new HashMap<>();
-        Map<String, Long> grants = new HashMap<>();
+        Map<Integer, Long> grants = new HashMap<>();
         for (ProgramGrant g : prepared.schedule().grants()) {
-            grants.put(g.programId(), g.grantMinutes());
+            grants.put(g.index(), g.grantMinutes());
         }
         Map<String, Integer> queueOrder = new HashMap<>();
         for (int i = 0; i < visits.size(); i++) {
@@ -129,13 +151,13 @@ public final class GreedyDispatcher {
         List<int[]> pinnedIntervals = new ArrayList<>();
         for (Visit v : visits) {
             if (v.isPinned()) {
-                commit(v, v.getPlacement(), programUsed, placedByRequest);
+                commit(v, v.getPlacement(), grantUsed, placedByRequest);
                 pinnedIntervals.add(new int[] {v.telescopeIndex(), v.startMinute(), v.endMinute()});
                 continue;
             }
             if (v.isPlaced() && !taken.isEmpty()) {
-                // Placed by an earlier walk: it counts against its program and its repeats, and stays.
-                commit(v, v.getPlacement(), programUsed, placedByRequest);
+                // Placed by an earlier walk: it counts against its grant and its repeats, and stays.
+                commit(v, v.getPlacement(), grantUsed, placedByRequest);
                 continue;
             }
             v.setPlacement(null);
@@ -166,23 +188,25 @@ public final class GreedyDispatcher {
                 continue;
             }
             Visit best = null;
+            Placement bestPlacement = null;
             for (Visit v : byTelescopeMinute.get(t).get(minute)) {
                 if (v.isPlaced()) {
                     continue;
                 }
                 int end = minute + v.lengthOn(t);
-                if (!fits(v, t, minute, end, pinnedIntervals, programUsed, grants, placedByRequest)
+                Placement p = v.getCandidates().stream()
+                        .filter(c -> c.telescopeIndex() == t && c.startMinute() == minute).findFirst().orElseThrow();
+                if (!fits(v, p, end, pinnedIntervals, grantUsed, grants, placedByRequest)
                         || overlapsTaken(taken.get(t), minute, end)) {
                     continue;
                 }
                 if (best == null || better(v, best, prepared, queueOrder)) {
                     best = v;
+                    bestPlacement = p;
                 }
             }
             if (best != null) {
-                Placement p = best.getCandidates().stream()
-                        .filter(c -> c.telescopeIndex() == t && c.startMinute() == minute).findFirst().orElseThrow();
-                commit(best, p, programUsed, placedByRequest);
+                commit(best, bestPlacement, grantUsed, placedByRequest);
                 busyUntil[t] = minute + best.lengthOn(t);
             }
         }
@@ -200,15 +224,18 @@ public final class GreedyDispatcher {
         return next != null && next < end;
     }
 
-    private static boolean fits(Visit v, int t, int start, int end, List<int[]> pinned, Map<String, Long> used,
-                                Map<String, Long> grants, Map<String, List<Visit>> placedByRequest) {
+    private static boolean fits(Visit v, Placement placement, int end, List<int[]> pinned, Map<Integer, Long> used,
+                                Map<Integer, Long> grants, Map<String, List<Visit>> placedByRequest) {
+        int t = placement.telescopeIndex();
+        int start = placement.startMinute();
         for (int[] p : pinned) {
             if (p[0] == t && p[1] < end && start < p[2]) {
                 return false;
             }
         }
-        Long grant = grants.get(v.programId());
-        if (grant != null && used.getOrDefault(v.programId(), 0L) + v.lengthOn(t) > grant) {
+        int grantIndex = v.grantOf(placement);
+        Long grant = grants.get(grantIndex);
+        if (grant != null && used.getOrDefault(grantIndex, 0L) + v.lengthOn(t) > grant) {
             return false;
         }
         for (Visit sibling : placedByRequest.getOrDefault(v.requestId(), List.of())) {
@@ -237,9 +264,9 @@ public final class GreedyDispatcher {
         return a.id().compareTo(b.id()) < 0;
     }
 
-    private static void commit(Visit v, Placement p, Map<String, Long> used, Map<String, List<Visit>> placedByRequest) {
+    private static void commit(Visit v, Placement p, Map<Integer, Long> used, Map<String, List<Visit>> placedByRequest) {
         v.setPlacement(p);
-        used.merge(v.programId(), (long) v.placedMinutes(), Long::sum);
+        used.merge(v.grantIndex(), (long) v.placedMinutes(), Long::sum);
         placedByRequest.computeIfAbsent(v.requestId(), k -> new ArrayList<>()).add(v);
     }
 }

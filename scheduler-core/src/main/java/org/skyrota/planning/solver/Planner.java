@@ -127,6 +127,27 @@ public final class Planner {
     }
 
     /**
+     * Plans {@code problem} starting from its published plan ({@link PlanningProblem#published()}): each visit starts
+     * where it is published if that place is still a candidate, the others are fitted around them, and moving a
+     * published visit costs the re-planning stability weight (unless the run sets it), so that only what must move
+     * does. Without published places it is {@link #solve}.
+     */
+    public PlanResult replanFromPublished(PlanningProblem problem, SolveOptions options, Consumer<Progress> progress) {
+        if (problem.published().isEmpty()) {
+            return solve(problem, options, progress);
+        }
+        options = withReplanStability(options);
+        PreparedProblem prepared = prepare(problem, options);
+        for (Visit v : prepared.schedule().visits()) {
+            if (!v.isPinned() && v.hasCandidate(v.getPublished())) {
+                v.setPlacement(v.getPublished());
+            }
+        }
+        GreedyDispatcher.grantAware().fill(prepared);
+        return solvePrepared(prepared, options, progress);
+    }
+
+    /**
      * Re-plans after nights were closed, reusing the candidates of {@code current} (no new sky computation, so it is
      * fast): the closed nights' candidates go, every other visit starts where it is and costs the stability weight
      * if it moves, pinned visits stay even on a closed night (which is then reported as a hard violation).
@@ -256,15 +277,22 @@ public final class Planner {
         Schedule schedule = prepared.schedule();
         Map<String, HardMediumSoftLongScore> byRule = new LinkedHashMap<>();
         List<String> hard = new ArrayList<>();
+        List<Violation> violations = new ArrayList<>();
         for (ConstraintMatchTotal<HardMediumSoftLongScore> total : explanation.getConstraintMatchTotalMap().values()) {
             byRule.put(total.getConstraintName(), total.getScore());
             for (ConstraintMatch<HardMediumSoftLongScore> match : total.getConstraintMatchSet()) {
                 if (match.getScore().hardScore() < 0) {
-                    String who = match.getIndictedObjectList().stream()
-                            .filter(Visit.class::isInstance).map(o -> describe((Visit) o, prepared))
-                            .collect(Collectors.joining(" and "));
+                    List<Visit> named = match.getIndictedObjectList().stream()
+                            .filter(Visit.class::isInstance).map(Visit.class::cast).toList();
+                    String who = named.stream().map(v -> describe(v, prepared)).collect(Collectors.joining(" and "));
                     hard.add(total.getConstraintName() + ": " + (who.isEmpty() ? match.getIndictedObjectList() : who)
                             + " (" + match.getScore().hardScore() + ")");
+                    org.skyrota.planning.domain.ProgramGrant grant = match.getIndictedObjectList().stream()
+                            .filter(org.skyrota.planning.domain.ProgramGrant.class::isInstance)
+                            .map(org.skyrota.planning.domain.ProgramGrant.class::cast).findFirst().orElse(null);
+                    violations.add(new Violation(total.getConstraintName(), named.stream().map(Visit::id).toList(),
+                            match.getScore().hardScore(), grant == null ? null : grant.programId(),
+                            grant == null ? null : grant.label()));
                 }
             }
         }
@@ -285,7 +313,7 @@ public final class Planner {
             }
         }
         return new PlanResult(List.copyOf(planned), List.copyOf(leftOut), explanation.getScore(), byRule,
-                List.copyOf(hard), prepared);
+                List.copyOf(hard), prepared, violations);
     }
 
     private static String describe(Visit v, PreparedProblem prepared) {

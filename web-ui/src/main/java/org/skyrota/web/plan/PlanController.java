@@ -21,9 +21,13 @@ import org.springframework.web.bind.annotation.RestController;
 class PlanController {
 
     private final PlanService service;
+    private final Drafts drafts;
+    private final Publishing publishing;
 
-    PlanController(PlanService service) {
+    PlanController(PlanService service, Drafts drafts, Publishing publishing) {
         this.service = service;
+        this.drafts = drafts;
+        this.publishing = publishing;
     }
 
     @GetMapping("/api/plans/draft")
@@ -43,9 +47,14 @@ class PlanController {
         return service.compare(from, to);
     }
 
+    /**
+     * Publishes draft {@code revision}; a draft that breaks a hard rule is refused (409 naming the rules and visits)
+     * unless {@code force=true} with a {@code reason}.
+     */
     @PostMapping("/api/plans/draft/publish")
-    PlanView publish(@RequestParam long revision) {
-        return service.publish(revision);
+    Publishing.PublishView publish(@RequestParam long revision, @RequestParam(defaultValue = "false") boolean force,
+                                   @RequestParam(required = false) String reason) {
+        return publishing.publish(revision, force, reason);
     }
 
     record NightForm(Long telescopeId, Long siteId, LocalDate night, String state, String reason) {}
@@ -53,7 +62,7 @@ class PlanController {
     @PutMapping("/api/plans/draft/nights")
     EffectView nights(@RequestBody NightForm form, @RequestParam(required = false) Long version,
                       @RequestParam(defaultValue = "false") boolean dryRun) {
-        return service.setNight(form.telescopeId(), form.siteId(), form.night(), form.state(), form.reason(), version, dryRun);
+        return drafts.setNight(form.telescopeId(), form.siteId(), form.night(), form.state(), form.reason(), version, dryRun);
     }
 
     record PlaceForm(Long telescopeId, Instant start) {}
@@ -61,35 +70,41 @@ class PlanController {
     @PostMapping("/api/visits/{id}/pin")
     EffectView pin(@PathVariable String id, @RequestBody(required = false) PlaceForm form,
                    @RequestParam(required = false) Long version, @RequestParam(defaultValue = "false") boolean dryRun) {
-        return service.pin(id, form == null ? null : form.telescopeId(), form == null ? null : form.start(), version, dryRun);
+        return drafts.pin(id, form == null ? null : form.telescopeId(), form == null ? null : form.start(), version, dryRun);
     }
 
     @PostMapping("/api/visits/{id}/move")
     EffectView move(@PathVariable String id, @RequestBody PlaceForm form,
                     @RequestParam(required = false) Long version, @RequestParam(defaultValue = "false") boolean dryRun) {
-        return service.move(id, form.telescopeId(), form.start(), version, dryRun);
+        return drafts.move(id, form.telescopeId(), form.start(), version, dryRun);
     }
 
     @PostMapping("/api/visits/{id}/unpin")
     EffectView unpin(@PathVariable String id, @RequestParam(required = false) Long version,
                      @RequestParam(defaultValue = "false") boolean dryRun) {
-        return service.unpin(id, version, dryRun);
+        return drafts.unpin(id, version, dryRun);
     }
 
     @PostMapping("/api/visits/{id}/unplace")
     EffectView unplace(@PathVariable String id, @RequestParam(required = false) Long version,
                        @RequestParam(defaultValue = "false") boolean dryRun) {
-        return service.unplace(id, version, dryRun);
+        return drafts.unplace(id, version, dryRun);
     }
 
     @GetMapping("/api/visits/{id}/candidates")
-    List<PlanService.CandidateView> candidates(@PathVariable String id) {
-        return service.candidates(id);
+    List<Drafts.CandidateView> candidates(@PathVariable String id) {
+        return drafts.candidates(id);
     }
 
     @GetMapping("/api/programs/usage")
     List<UsageView> usage() {
         return service.usage();
+    }
+
+    /** One program's grants as a ledger: granted, observed, published, draft and remaining hours per grant. */
+    @GetMapping("/api/programs/{id}/usage")
+    UsageView usage(@PathVariable long id) {
+        return service.usage(id);
     }
 
     @GetMapping("/api/requests/{id}/plan-status")

@@ -1,12 +1,11 @@
 package org.skyrota.web.plan;
 
 import java.time.Duration;
+import java.time.Instant;
 import java.time.LocalDate;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
-
-import java.time.Instant;
 
 import org.optaplanner.core.api.score.buildin.hardmediumsoftlong.HardMediumSoftLongScore;
 import org.skyrota.planning.candidates.PreparedProblem;
@@ -15,11 +14,13 @@ import org.skyrota.planning.domain.Visit;
 import org.skyrota.planning.solver.PlanResult;
 import org.skyrota.planning.solver.Planner;
 import org.skyrota.planning.solver.SolveOptions;
+import org.skyrota.planning.solver.Violation;
 import org.springframework.stereotype.Component;
 
 /**
  * Scores a plan as it stands with the constraints module's rules (the facade's {@link Planner#evaluate}, which is
- * OptaPlanner's {@code SolutionManager.explain}): every placed visit is held where it is, so nothing moves.
+ * OptaPlanner's {@code SolutionManager.explain}): every placed visit ahead of now is held where it is, so nothing
+ * moves; history is a fact the plan keeps around (its telescope time, its grant hours, the spacing of the repeats).
  */
 @Component
 class PlanScorer {
@@ -32,8 +33,12 @@ class PlanScorer {
         this.inputs = inputs;
     }
 
-    /** The score, the score per rule, and the planner's view of every visit (for the lengths of moved visits). */
-    record Scored(HardMediumSoftLongScore score, Map<String, HardMediumSoftLongScore> byRule, List<PlanVisit> visits) {
+    /** A broken hard rule: the rule, the visits it names (as "12-1"), and for a grant the program and grant. */
+    record Broken(String rule, List<String> visits, long penalty, Long programId, String grant) {}
+
+    /** The score, the score per rule, the planner's view of every visit, and the hard rules broken. */
+    record Scored(HardMediumSoftLongScore score, Map<String, HardMediumSoftLongScore> byRule, List<PlanVisit> visits,
+                  List<Broken> broken) {
 
         /** Hard rules broken worse in {@code this} than in {@code before}. */
         List<String> hardBrokenSince(Scored before) {
@@ -48,12 +53,24 @@ class PlanScorer {
         }
     }
 
-    Scored score(LocalDate first, LocalDate last, List<PlanVisit> visits, List<PlanNight> nights) {
-        List<PlanVisit> held = visits.stream().filter(PlanVisit::isPlaced).toList();
-        PlanningMapper.Mapped mapped = inputs.problem(first, last, null, held, nights);
+    Scored score(TermState term, LocalDate first, LocalDate last, List<PlanVisit> visits, List<PlanNight> nights) {
+        PlanInputs.Problem p = inputs.forScoring(term, visits, nights, first, last, null);
         Planner planner = planners.fresh();
-        PlanResult result = planner.evaluate(planner.prepare(mapped.problem(), SolveOptions.of(Duration.ofSeconds(1))));
-        return new Scored(result.score(), result.scoreByRule(), mapped.visits(result));
+        PlanResult result = planner.evaluate(planner.prepare(p.mapped().problem(), SolveOptions.of(Duration.ofSeconds(1))));
+        return new Scored(result.score(), result.scoreByRule(), p.mapped().visits(result), broken(result, p.mapped()));
+    }
+
+    private static List<Broken> broken(PlanResult result, PlanningMapper.Mapped mapped) {
+        List<Broken> out = new ArrayList<>();
+        for (Violation v : result.violations()) {
+            List<String> keys = v.visitIds().stream().map(id -> {
+                VisitKey key = mapped.keyByVisitId().get(id);
+                return key == null ? id : key.toString();
+            }).toList();
+            out.add(new Broken(v.rule(), keys, v.hardScore(), v.programId() == null ? null : Long.valueOf(v.programId()),
+                    v.grant()));
+        }
+        return out;
     }
 
     /** One other placement of a visit and what moving it there does to the score. */
@@ -63,12 +80,11 @@ class PlanScorer {
      * Up to {@code max} of the visit's candidate placements (spread over all of them), each scored with every other
      * placed visit held where it is.
      */
-    List<Candidate> candidates(LocalDate first, LocalDate last, List<PlanVisit> visits, List<PlanNight> nights,
-                               VisitKey key, int max) {
-        List<PlanVisit> held = visits.stream().filter(v -> v.isPlaced() && !v.key().equals(key)).toList();
-        PlanningMapper.Mapped mapped = inputs.problem(first, last, null, held, nights);
-        String visitId = mapped.keyByVisitId().entrySet().stream().filter(e -> e.getValue().equals(key))
-                .map(Map.Entry::getKey).findFirst().orElse(null);
+    List<Candidate> candidates(TermState term, LocalDate first, LocalDate last, List<PlanVisit> visits,
+                               List<PlanNight> nights, VisitKey key, int max) {
+        PlanInputs.Problem problem = inputs.forScoring(term, visits, nights, first, last, key);
+        PlanningMapper.Mapped mapped = problem.mapped();
+        String visitId = mapped.visitIdOf(key).orElse(null);
         if (visitId == null) {
             return List.of();
         }
@@ -95,8 +111,8 @@ class PlanScorer {
             }
             visit.setPlacement(p);
             PlanResult after = planner.evaluate(prepared);
-            Scored was = new Scored(before.score(), before.scoreByRule(), List.of());
-            Scored is = new Scored(after.score(), after.scoreByRule(), List.of());
+            Scored was = new Scored(before.score(), before.scoreByRule(), List.of(), List.of());
+            Scored is = new Scored(after.score(), after.scoreByRule(), List.of(), List.of());
             Instant start = prepared.schedule().instantOf(p.startMinute());
             out.add(new Candidate(Long.parseLong(prepared.telescope(p.telescopeIndex()).id()), start,
                     prepared.schedule().instantOf(p.startMinute() + visit.lengthOn(p.telescopeIndex())),

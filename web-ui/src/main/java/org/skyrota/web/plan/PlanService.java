@@ -48,8 +48,9 @@ import org.springframework.transaction.annotation.Transactional;
 import org.springframework.transaction.support.TransactionTemplate;
 
 /**
- * The draft and the published plan: reading them, a coordinator's overrides on the draft (each scored before it is
- * made), publishing, and comparing the two.
+ * Reading the plans: the draft and the published plan (each visit with how it stands now), the comparison of the two,
+ * each program's grant ledger, and where a request's visits stand. Changes are made by {@link Drafts} and
+ * {@link Publishing}.
  */
 @Service
 @Transactional
@@ -59,13 +60,10 @@ public class PlanService {
     private final ObservingRequestRepository requests;
     private final TelescopeRepository telescopes;
     private final ProgramRepository programs;
-    private final ObservationReportRepository reports;
     private final RequestService requestService;
-    private final PlanScorer scorer;
-    private final AuditLog audit;
+    private final PlanInputs inputs;
     private final StoredChanges changes;
     private final TransactionTemplate readOnly;
-    private final java.time.Clock clock;
 
     /** How long a kept published view may be used at most, even when nothing this server saw has changed. */
     static final Duration PUBLISHED_VIEW_MAX_AGE = Duration.ofSeconds(5);
@@ -76,18 +74,14 @@ public class PlanService {
     private final AtomicReference<PublishedSnapshot> publishedSnapshot = new AtomicReference<>();
 
     PlanService(PlanRevisionRepository revisions, ObservingRequestRepository requests, TelescopeRepository telescopes,
-                ProgramRepository programs, ObservationReportRepository reports, RequestService requestService,
-                PlanScorer scorer, AuditLog audit, StoredChanges changes, PlatformTransactionManager transactions,
-                java.time.Clock clock) {
-        this.clock = clock;
+                ProgramRepository programs, RequestService requestService, PlanInputs inputs, StoredChanges changes,
+                PlatformTransactionManager transactions) {
         this.revisions = revisions;
         this.requests = requests;
         this.telescopes = telescopes;
         this.programs = programs;
-        this.reports = reports;
         this.requestService = requestService;
-        this.scorer = scorer;
-        this.audit = audit;
+        this.inputs = inputs;
         this.changes = changes;
         this.readOnly = new TransactionTemplate(transactions);
         readOnly.setReadOnly(true);
@@ -95,18 +89,21 @@ public class PlanService {
 
     // ---- reading ----
 
+    /** The draft as it stands now: history as published, then the draft's visits ahead. */
     @Transactional(readOnly = true)
     public PlanView draft(LocalDate from, LocalDate to, Long siteId) {
         Map<Long, Long> siteOf = siteByTelescope();
-        return narrowed(view(revisions.findFirstByStateOrderByIdDesc(PlanRevision.State.DRAFT), "draft", siteOf), siteOf,
-                from, to, siteId, CurrentUser.get());
+        TermState term = inputs.term();
+        PlanView full = term.draft().map(d -> view(term, d, term.draftVisits(), "draft", siteOf))
+                .orElseGet(() -> empty("draft", term));
+        return narrowed(full, siteOf, from, to, siteId, CurrentUser.get());
     }
 
     /**
      * The published plan, narrowed to nights and a site. It is read by every requester and every observatory's
-     * script, and changes only when a plan is published or a request or telescope in it is edited, so the view is
-     * built once and kept until then (or for {@link #PUBLISHED_VIEW_MAX_AGE}); each reader gets it narrowed and with
-     * other people's names left out.
+     * script, and changes only when a plan is published, a report comes in, or a request or telescope in it is
+     * edited, so the view is built once and kept until then (or for {@link #PUBLISHED_VIEW_MAX_AGE}, so that visits
+     * pass into history as time goes on); each reader gets it narrowed and with other people's names left out.
      */
     @Transactional(propagation = Propagation.NOT_SUPPORTED)
     public PlanView published(LocalDate from, LocalDate to, Long siteId) {
@@ -121,8 +118,10 @@ public class PlanService {
                     long builtAt = System.nanoTime();
                     kept = readOnly.execute(status -> {
                         Map<Long, Long> siteOf = siteByTelescope();
-                        PlanView full = view(revisions.findFirstByStateOrderByIdDesc(PlanRevision.State.PUBLISHED),
-                                "published", siteOf);
+                        TermState term = inputs.term();
+                        PlanView full = term.published()
+                                .map(p -> view(term, p, publishedVisits(term, p), "published", siteOf))
+                                .orElseGet(() -> empty("published", term));
                         return new PublishedSnapshot(count, builtAt, full, Map.copyOf(siteOf));
                     });
                     publishedSnapshot.set(kept);
@@ -130,6 +129,18 @@ public class PlanService {
             }
         }
         return narrowed(kept.full(), kept.siteOf(), from, to, siteId, CurrentUser.get());
+    }
+
+    /**
+     * The published plan's visits as they stand: history, and the visits ahead of requests still accepted (a
+     * withdrawn request's visits leave the plan at once; calendars get them as cancelled).
+     */
+    private List<PlanVisit> publishedVisits(TermState term, PlanRevision p) {
+        java.util.Set<Long> accepted = new java.util.HashSet<>();
+        requests.findAll().stream().filter(r -> r.getState() == org.skyrota.web.request.RequestState.ACCEPTED)
+                .forEach(r -> accepted.add(r.getId()));
+        return p.getVisits().stream().filter(v -> !v.isCancelled())
+                .filter(v -> term.hasStarted(v) || accepted.contains(v.getRequestId())).toList();
     }
 
     private static boolean current(PublishedSnapshot kept, long count) {
@@ -140,14 +151,18 @@ public class PlanService {
     private long publishedInputChanges() {
         // New requests cannot be in a published plan yet, so only their edits and deletions count.
         return changes.anyChange(PlanRevision.class) + changes.updatedOrDeleted(ObservingRequest.class)
-                + changes.updatedOrDeleted(Telescope.class);
+                + changes.updatedOrDeleted(Telescope.class) + changes.anyChange(ObservationReport.class);
+    }
+
+    private static PlanView empty(String kind, TermState term) {
+        return new PlanView(null, null, kind, null, null, null, null, List.of(), List.of(), List.of(), term.now());
     }
 
     /** {@code full} narrowed to nights and a site, naming only the owners {@code user} may see. */
     private static PlanView narrowed(PlanView full, Map<Long, Long> siteOf, LocalDate from, LocalDate to, Long siteId,
                                      CurrentUser user) {
         if (full.revision() == null) {
-            return new PlanView(null, null, full.state(), from, to, null, null, List.of(), List.of(), List.of());
+            return new PlanView(null, null, full.state(), from, to, null, null, List.of(), List.of(), List.of(), full.now());
         }
         List<VisitView> visits = new ArrayList<>();
         for (VisitView v : full.visits()) {
@@ -155,38 +170,25 @@ public class PlanService {
                 continue;
             }
             boolean mayName = user.reviewer() || user.username().equals(v.owner());
-            visits.add(mayName ? v : new VisitView(v.id(), v.requestId(), v.targetName(), v.raDeg(), v.decDeg(),
-                    v.telescopeId(), v.siteId(), v.night(), v.start(), v.end(), v.pinned(), null, null, v.programId(),
-                    v.targetKind()));
+            visits.add(mayName ? v : v.withoutOwner());
         }
         List<NightView> nights = full.closedNights().stream()
                 .filter(n -> inRange(n.night(), from, to))
                 .filter(n -> siteId == null || siteId.equals(siteOf.get(n.telescopeId())))
                 .toList();
         return new PlanView(full.revision(), full.version(), full.state(), full.firstNight(), full.lastNight(),
-                full.publishedAt(), full.score(), visits, full.unplaced(), nights);
+                full.publishedAt(), full.score(), visits, full.unplaced(), nights, full.now());
     }
 
-    /** The published revision itself, for the exports (null when nothing is published). */
-    @Transactional(readOnly = true)
-    public Optional<PlanRevision> publishedRevision() {
-        Optional<PlanRevision> rev = revisions.findFirstByStateOrderByIdDesc(PlanRevision.State.PUBLISHED);
-        rev.ifPresent(r -> r.getVisits().size());
-        return rev;
-    }
-
-    /** Every visit of the revision, each naming its owner; {@link #narrowed} fits it to a reader. */
-    private PlanView view(Optional<PlanRevision> found, String kind, Map<Long, Long> siteOf) {
-        if (found.isEmpty()) {
-            return new PlanView(null, null, kind, null, null, null, null, List.of(), List.of(), List.of());
-        }
-        PlanRevision rev = found.get();
-        Map<Long, ObservingRequest> byId = requestsOf(rev.getVisits());
+    /** Every visit given, each naming its owner and how it stands now; {@link #narrowed} fits it to a reader. */
+    private PlanView view(TermState term, PlanRevision rev, List<PlanVisit> revisionVisits, String kind,
+                          Map<Long, Long> siteOf) {
+        Map<Long, ObservingRequest> byId = requestsOf(revisionVisits);
         List<VisitView> visits = new ArrayList<>();
         List<UnplacedView> unplaced = new ArrayList<>();
-        for (PlanVisit v : rev.getVisits()) {
+        for (PlanVisit v : revisionVisits) {
             ObservingRequest r = byId.get(v.getRequestId());
-            if (r == null) {
+            if (r == null || v.isCancelled()) {
                 continue;
             }
             if (!v.isPlaced()) {
@@ -196,14 +198,14 @@ public class PlanService {
             Long site = siteOf.get(v.getTelescopeId());
             visits.add(new VisitView(v.key().toString(), v.getRequestId(), r.getTargetName(), r.getRaDeg(), r.getDecDeg(),
                     v.getTelescopeId(), site == null ? 0 : site, v.getNight(), v.getStart(), v.getEnd(), v.isPinned(),
-                    r.getOwner(), r.getOwner(), r.getProgram().getId(), r.getTargetKind()));
+                    r.getOwner(), r.getOwner(), r.getProgram().getId(), r.getTargetKind(), term.standing(v).words()));
         }
         visits.sort(Comparator.comparing(VisitView::start).thenComparing(VisitView::telescopeId));
         List<NightView> nights = rev.getNights().stream()
                 .map(n -> new NightView(n.getTelescopeId(), n.getNight(), n.getState().name().toLowerCase(), n.getReason()))
                 .toList();
         return new PlanView(rev.getId(), rev.getVersion(), rev.getState().name().toLowerCase(), rev.getFirstNight(),
-                rev.getLastNight(), rev.getPublishedAt(), rev.getScore(), visits, unplaced, nights);
+                rev.getLastNight(), rev.getPublishedAt(), rev.getScore(), visits, unplaced, nights, term.now());
     }
 
     private static boolean inRange(LocalDate night, LocalDate from, LocalDate to) {
@@ -221,212 +223,6 @@ public class PlanService {
         Map<Long, Long> out = new HashMap<>();
         telescopes.findAll().forEach(t -> out.put(t.getId(), t.getSite().getId()));
         return out;
-    }
-
-    // ---- overrides on the draft ----
-
-    /** Pins a visit where it stands, or at {@code telescopeId} and {@code start} when given. */
-    public EffectView pin(String visitId, Long telescopeId, Instant start, Long version, boolean dryRun) {
-        if ((telescopeId == null) != (start == null)) {
-            throw new InvalidParametersException(List.of(new FieldProblem(telescopeId == null ? "telescopeId" : "start",
-                    "give both telescopeId and start, or neither")));
-        }
-        return override("pin", visitId, version, dryRun, v -> {
-            if (telescopeId != null) {
-                place(v, telescopeId, start);
-            } else if (!v.isPlaced()) {
-                throw new ConflictException("Visit " + visitId + " is not placed; give telescopeId and start to pin it");
-            }
-            v.setPinned(true);
-        });
-    }
-
-    public EffectView move(String visitId, Long telescopeId, Instant start, Long version, boolean dryRun) {
-        if (telescopeId == null || start == null) {
-            throw new InvalidParametersException(List.of(new FieldProblem(telescopeId == null ? "telescopeId" : "start",
-                    "must be given")));
-        }
-        // A moved visit is pinned there: a re-run would otherwise be free to move it back.
-        return override("move", visitId, version, dryRun, v -> {
-            place(v, telescopeId, start);
-            v.setPinned(true);
-        });
-    }
-
-    public EffectView unpin(String visitId, Long version, boolean dryRun) {
-        return override("unpin", visitId, version, dryRun, v -> v.setPinned(false));
-    }
-
-    public EffectView unplace(String visitId, Long version, boolean dryRun) {
-        String by = CurrentUser.get().username();
-        return override("unplace", visitId, version, dryRun, v -> v.unplace("taken out of the plan by " + by));
-    }
-
-    private void place(PlanVisit v, long telescopeId, Instant start) {
-        Telescope t = telescopes.findById(telescopeId).orElseThrow(() -> new NotFoundException("telescope", telescopeId));
-        LocalDate night = PlanningMapper.nightOf(start, PlanningMapper.site(t.getSite()).nightZone());
-        Duration length = v.isPlaced() ? Duration.between(v.getStart(), v.getEnd()) : Duration.ofMinutes(PlanningMapper.GRID_MINUTES);
-        // The length is the planner's: it is set from the scored plan below.
-        v.place(telescopeId, night, start, start.plus(length), v.isPinned());
-    }
-
-    private EffectView override(String what, String visitId, Long version, boolean dryRun, Consumer<PlanVisit> change) {
-        VisitKey key = VisitKey.parse(visitId);
-        PlanRevision rev = draftForChange(version);
-        List<PlanVisit> changed = rev.getVisits().stream().map(PlanVisit::copy).toList();
-        PlanVisit target = changed.stream().filter(v -> v.key().equals(key)).findFirst()
-                .orElseThrow(() -> new NotFoundException("visit", visitId));
-        change.accept(target);
-        return apply(rev, what + " " + visitId, changed, rev.getNights().stream().map(PlanNight::copy).toList(), dryRun);
-    }
-
-    /** Opens, locks or closes a telescope's night (or every telescope's of a site). */
-    public EffectView setNight(Long telescopeId, Long siteId, LocalDate night, String state, String reason, Long version,
-                               boolean dryRun) {
-        if (night == null) {
-            throw new InvalidParametersException(List.of(new FieldProblem("night", "must be given")));
-        }
-        if ((telescopeId == null) == (siteId == null)) {
-            // Both members are at fault together (one too many, or one too few), so both are named.
-            throw new InvalidParametersException(List.of(new FieldProblem("telescopeId", "give telescopeId or siteId, not both"),
-                    new FieldProblem("siteId", "give telescopeId or siteId, not both")));
-        }
-        String s = state == null ? "" : state.trim().toLowerCase();
-        if (!List.of("open", "locked", "closed").contains(s)) {
-            throw new InvalidParametersException(List.of(new FieldProblem("state", "must be open, locked or closed")));
-        }
-        List<Long> scope = telescopeId != null
-                ? List.of(telescopes.findById(telescopeId).orElseThrow(() -> new NotFoundException("telescope", telescopeId)).getId())
-                : telescopes.findAll().stream().filter(t -> t.getSite().getId().equals(siteId)).map(Telescope::getId).toList();
-        if (scope.isEmpty()) {
-            throw new NotFoundException("site", siteId);
-        }
-        PlanRevision rev = draftForChange(version);
-        List<PlanVisit> visits = rev.getVisits().stream().map(PlanVisit::copy).toList();
-        List<PlanNight> nights = new ArrayList<>(rev.getNights().stream().map(PlanNight::copy)
-                .filter(n -> scope.stream().noneMatch(t -> n.is(t, night))).toList());
-        String why = reason == null || reason.isBlank() ? null : reason.trim();
-        for (long t : scope) {
-            if (s.equals("locked")) {
-                nights.add(new PlanNight(t, night, PlanNight.State.LOCKED, why));
-            } else if (s.equals("closed")) {
-                nights.add(new PlanNight(t, night, PlanNight.State.CLOSED, why));
-                for (PlanVisit v : visits) {
-                    if (v.isPlaced() && v.getTelescopeId() == t && v.getNight().equals(night)) {
-                        v.unplace("the night of " + night + " is closed" + (why == null ? "" : ": " + why));
-                    }
-                }
-            }
-        }
-        return apply(rev, "night " + night + " " + s, visits, nights, dryRun);
-    }
-
-    private PlanRevision draftForChange(Long version) {
-        PlanRevision rev = revisions.findFirstByStateOrderByIdDesc(PlanRevision.State.DRAFT)
-                .orElseThrow(() -> new ConflictException("There is no draft plan yet; start a planner run first"));
-        if (version != null) {
-            rev.requireVersion("draft plan revision", version);
-        }
-        return rev;
-    }
-
-    private EffectView apply(PlanRevision rev, String what, List<PlanVisit> visits, List<PlanNight> nights, boolean dryRun) {
-        LocalDate first = rev.getFirstNight();
-        LocalDate last = rev.getLastNight();
-        for (PlanVisit v : visits) {
-            if (v.isPlaced()) {
-                first = v.getNight().isBefore(first) ? v.getNight() : first;
-                last = v.getNight().isAfter(last) ? v.getNight() : last;
-            }
-        }
-        PlanScorer.Scored before = scorer.score(rev.getFirstNight(), rev.getLastNight(), rev.getVisits(), rev.getNights());
-        PlanScorer.Scored after = scorer.score(first, last, visits, nights);
-        List<String> broken = after.hardBrokenSince(before);
-        if (dryRun) {
-            return new EffectView(true, before.score().toString(), after.score().toString(), broken, rev.getId(), rev.getVersion());
-        }
-        Map<VisitKey, PlanVisit> scored = new HashMap<>();
-        after.visits().forEach(v -> scored.put(v.key(), v));
-        Map<String, Object> was = summary(rev);
-        rev.getVisits().clear();
-        for (PlanVisit v : visits) {
-            PlanVisit s = scored.get(v.key());
-            if (v.isPlaced() && s != null && s.isPlaced()) {
-                v.place(v.getTelescopeId(), v.getNight(), v.getStart(), s.getEnd(), v.isPinned());
-            }
-            rev.getVisits().add(v);
-        }
-        rev.getNights().clear();
-        rev.getNights().addAll(nights);
-        rev.widenTo(first, last);
-        rev.setScore(after.score().toString());
-        revisions.saveAndFlush(rev);
-        Map<String, Object> now = summary(rev);
-        now.put("change", what);
-        audit.record("override", "plan", rev.getId(), was, now);
-        return new EffectView(false, before.score().toString(), after.score().toString(), broken, rev.getId(), rev.getVersion());
-    }
-
-    private static Map<String, Object> summary(PlanRevision rev) {
-        Map<String, Object> m = new LinkedHashMap<>();
-        m.put("revision", rev.getId());
-        m.put("version", rev.getVersion());
-        m.put("state", rev.getState().name().toLowerCase());
-        m.put("firstNight", rev.getFirstNight());
-        m.put("lastNight", rev.getLastNight());
-        m.put("score", rev.getScore());
-        m.put("placed", rev.getVisits().stream().filter(PlanVisit::isPlaced).count());
-        m.put("pinned", rev.getVisits().stream().filter(PlanVisit::isPinned).count());
-        m.put("leftOut", rev.getVisits().stream().filter(v -> !v.isPlaced()).count());
-        m.put("nights", rev.getNights().size());
-        return m;
-    }
-
-    /** A placement the visit could move to, and what that does to the score. */
-    public record CandidateView(long telescopeId, Instant start, Instant end, String scoreChange,
-                                List<String> hardBroken) {}
-
-    /** Up to 12 other placements of a draft visit, each scored as if it moved there. */
-    @Transactional(readOnly = true)
-    public List<CandidateView> candidates(String visitId) {
-        VisitKey key = VisitKey.parse(visitId);
-        PlanRevision rev = revisions.findFirstByStateOrderByIdDesc(PlanRevision.State.DRAFT)
-                .orElseThrow(() -> new ConflictException("There is no draft plan yet; start a planner run first"));
-        if (rev.getVisits().stream().noneMatch(v -> v.key().equals(key))) {
-            throw new NotFoundException("visit", visitId);
-        }
-        return scorer.candidates(rev.getFirstNight(), rev.getLastNight(), rev.getVisits(), rev.getNights(), key, 12)
-                .stream().map(c -> new CandidateView(c.telescopeId(), c.start(), c.end(), c.scoreChange(),
-                        c.hardBroken())).toList();
-    }
-
-    // ---- publishing and comparing ----
-
-    /** Copies the draft {@code revision} into a new published revision; the previous published one is retired. */
-    public PlanView publish(long revision) {
-        PlanRevision draft = revisions.findFirstByStateOrderByIdDesc(PlanRevision.State.DRAFT)
-                .orElseThrow(() -> new ConflictException("There is no draft plan to publish"));
-        if (draft.getId() != revision) {
-            throw new ConflictException("The draft is revision " + draft.getId() + ", not " + revision
-                    + "; read the draft again before publishing");
-        }
-        Map<String, Object> before = null;
-        for (PlanRevision old : revisions.findByState(PlanRevision.State.PUBLISHED)) {
-            before = summary(old);
-            old.setState(PlanRevision.State.RETIRED);
-        }
-        PlanRevision copy = new PlanRevision(PlanRevision.State.DRAFT, draft.getFirstNight(), draft.getLastNight());
-        draft.getVisits().forEach(v -> copy.getVisits().add(v.copy()));
-        draft.getNights().forEach(n -> copy.getNights().add(n.copy()));
-        copy.setScore(draft.getScore());
-        copy.setRunId(draft.getRunId());
-        copy.markPublished(clock.instant(), CurrentUser.get().username());
-        revisions.saveAndFlush(copy);
-        Map<String, Object> after = summary(copy);
-        after.put("fromDraft", draft.getId());
-        audit.record("publish", "plan", copy.getId(), before, after);
-        Map<Long, Long> siteOf = siteByTelescope();
-        return narrowed(view(Optional.of(copy), "published", siteOf), siteOf, null, null, null, CurrentUser.get());
     }
 
     @Transactional(readOnly = true)
@@ -478,54 +274,55 @@ public class PlanService {
 
     // ---- per program and per request ----
 
-    /** Granted hours (all grants), hours in the published plan, and hours reported done, per program. */
+    /** Per program: its grants' hours, and what is observed, published and in the draft, as the grant ledger has it. */
     @Transactional(readOnly = true)
     public List<UsageView> usage() {
-        Map<Long, Long> programOfRequest = new HashMap<>();
-        requests.findAll().forEach(r -> programOfRequest.put(r.getId(), r.getProgram().getId()));
-        Map<Long, Double> planned = new HashMap<>();
-        revisions.findFirstByStateOrderByIdDesc(PlanRevision.State.PUBLISHED).ifPresent(rev -> rev.getVisits().stream()
-                .filter(PlanVisit::isPlaced)
-                .forEach(v -> planned.merge(programOfRequest.getOrDefault(v.getRequestId(), -1L),
-                        Duration.between(v.getStart(), v.getEnd()).toSeconds() / 3600.0, Double::sum)));
-        Map<Long, Double> observed = new HashMap<>();
-        for (ObservationReport r : StandingReports.done(reports.findAll()).values()) {
-            observed.merge(programOfRequest.getOrDefault(r.getRequestId(), -1L), r.getObservedSeconds() / 3600.0,
-                    Double::sum);
-        }
+        TermState term = inputs.term();
+        Map<Long, List<GrantLedger.Account>> byProgram = new LinkedHashMap<>();
+        inputs.accounts(term, null).forEach(a -> byProgram.computeIfAbsent(a.programId(), k -> new ArrayList<>()).add(a));
         List<UsageView> out = new ArrayList<>();
         for (Program p : programs.findAll(org.springframework.data.domain.Sort.by("code"))) {
-            double granted = p.getGrants().stream().mapToDouble(Grant::getHours).sum();
-            out.add(new UsageView(p.getId(), granted, round(planned.getOrDefault(p.getId(), 0.0)),
-                    round(observed.getOrDefault(p.getId(), 0.0))));
+            out.add(UsageView.of(p, byProgram.getOrDefault(p.getId(), List.of())));
         }
         return out;
     }
 
-    private static double round(double hours) {
-        return Math.round(hours * 100) / 100.0;
+    /** One program's grant ledger. */
+    @Transactional(readOnly = true)
+    public UsageView usage(long programId) {
+        Program p = programs.findById(programId).orElseThrow(() -> new NotFoundException("program", programId));
+        return UsageView.of(p, inputs.accounts(inputs.term(), programId));
     }
 
-    /** Where each visit of a request stands in the latest draft. A requester asks only about their own requests. */
+    /** Where each visit of a request stands: in the latest draft ahead of now, and in history. */
     @Transactional(readOnly = true)
     public PlanStatusView planStatus(long requestId) {
         requestService.get(requestId);
-        Optional<PlanRevision> draft = revisions.findFirstByStateOrderByIdDesc(PlanRevision.State.DRAFT);
+        TermState term = inputs.term();
         Map<Long, Long> siteOf = siteByTelescope();
         List<VisitStatus> visits = new ArrayList<>();
-        draft.ifPresent(rev -> rev.getVisits().stream().filter(v -> v.getRequestId() == requestId).forEach(v -> visits.add(
-                v.isPlaced()
-                        ? new VisitStatus(v.key().toString(), v.isPinned() ? "pinned" : "placed", v.getTelescopeId(),
-                        siteOf.get(v.getTelescopeId()), v.getNight(), v.getStart(), v.getEnd(), null)
-                        : new VisitStatus(v.key().toString(), "unplaced", null, null, null, null, null, v.getReason()))));
-        for (ObservationReport r : StandingReports.done(reports.findAll()).values()) {
-            if (r.getRequestId() == requestId
-                    && visits.stream().noneMatch(v -> v.visitId().equals(new VisitKey(requestId, r.getRepeatNo()).toString()))) {
-                visits.add(new VisitStatus(new VisitKey(requestId, r.getRepeatNo()).toString(), "observed", r.getTelescopeId(),
-                        siteOf.get(r.getTelescopeId()), null, r.getObservedAt(), null, null));
+        java.util.Set<VisitKey> seen = new java.util.HashSet<>();
+        for (PlanVisit v : term.draftVisits()) {
+            if (v.getRequestId() != requestId || !seen.add(v.key())) {
+                continue;
+            }
+            if (v.isPlaced()) {
+                TermState.Standing standing = term.standing(v);
+                String status = standing != TermState.Standing.PLANNED ? standing.words() : v.isPinned() ? "pinned" : "placed";
+                visits.add(new VisitStatus(v.key().toString(), status, v.getTelescopeId(), siteOf.get(v.getTelescopeId()),
+                        v.getNight(), v.getStart(), v.getEnd(), null));
+            } else {
+                visits.add(new VisitStatus(v.key().toString(), "unplaced", null, null, null, null, null, v.getReason()));
+            }
+        }
+        for (ObservationReport r : term.observed().values()) {
+            VisitKey key = new VisitKey(requestId, r.getRepeatNo());
+            if (r.getRequestId() == requestId && seen.add(key)) {
+                visits.add(new VisitStatus(key.toString(), "observed", r.getTelescopeId(), siteOf.get(r.getTelescopeId()),
+                        null, r.getObservedAt(), null, null));
             }
         }
         visits.sort(Comparator.comparing(VisitStatus::visitId));
-        return new PlanStatusView(requestId, draft.map(PlanRevision::getId).orElse(null), visits);
+        return new PlanStatusView(requestId, term.draft().map(PlanRevision::getId).orElse(null), visits);
     }
 }

@@ -6,7 +6,12 @@ import java.time.LocalDate;
 import jakarta.persistence.Column;
 import jakarta.persistence.Embeddable;
 
-/** One visit in a plan revision: placed (telescope, night, start, end) or left out with the planner's reason. */
+/**
+ * One visit in a plan revision: placed (telescope, night, start, end) or left out with the planner's reason. In a
+ * published revision a visit also has its calendar sequence (it grows each time the visit changes), and a visit the
+ * previous published plan had and this one gave up stays as a cancelled entry, with its last place, so that
+ * subscribed calendars learn it is cancelled.
+ */
 @Embeddable
 public class PlanVisit {
 
@@ -32,6 +37,12 @@ public class PlanVisit {
 
     @Column(length = 1000)
     private String reason;
+
+    @Column(name = "sequence_no", nullable = false)
+    private int sequence;
+
+    @Column(nullable = false)
+    private boolean cancelled;
 
     protected PlanVisit() {}
 
@@ -61,6 +72,18 @@ public class PlanVisit {
         v.end = end;
         v.pinned = pinned;
         v.reason = reason;
+        v.sequence = sequence;
+        v.cancelled = cancelled;
+        return v;
+    }
+
+    /** This visit as a cancelled entry: its last place, the sequence after {@code lastSequence}, and why. */
+    public PlanVisit cancelledAfter(int lastSequence, String why) {
+        PlanVisit v = copy();
+        v.pinned = false;
+        v.cancelled = true;
+        v.sequence = lastSequence + 1;
+        v.reason = why;
         return v;
     }
 
@@ -86,12 +109,32 @@ public class PlanVisit {
         this.pinned = pinned;
     }
 
+    public void setSequence(int sequence) {
+        this.sequence = sequence;
+    }
+
+    public int getSequence() {
+        return sequence;
+    }
+
+    /** A visit the plan gave up, kept with its last place for calendars; never planned, never shown as placed. */
+    public boolean isCancelled() {
+        return cancelled;
+    }
+
+    /** Same telescope, start and end as {@code other}. */
+    public boolean samePlaceAs(PlanVisit other) {
+        return java.util.Objects.equals(telescopeId, other.telescopeId) && java.util.Objects.equals(start, other.start)
+                && java.util.Objects.equals(end, other.end);
+    }
+
     public VisitKey key() {
         return new VisitKey(requestId, repeatNo);
     }
 
+    /** Placed on a telescope, and not a cancelled entry. */
     public boolean isPlaced() {
-        return telescopeId != null;
+        return telescopeId != null && !cancelled;
     }
 
     public long getRequestId() {

@@ -17,6 +17,7 @@ import org.skyrota.planning.model.Closure;
 import org.skyrota.planning.model.DarknessLimit;
 import org.skyrota.planning.model.ExposureStep;
 import org.skyrota.planning.model.MountKind;
+import org.skyrota.planning.model.Occupied;
 import org.skyrota.planning.model.ObservingLimits;
 import org.skyrota.planning.model.PlanningProblem;
 import org.skyrota.planning.model.Request;
@@ -54,20 +55,44 @@ public final class PlanningMapper {
     static final int CANDIDATE_STEP_MINUTES = 10;
 
     /**
+     * For one request: the repeat numbers this run plans, and the starts those keep their spacing from (repeats
+     * observed, awaiting their report, or kept in place outside the run).
+     */
+    public record Repeats(List<Integer> open, List<Instant> anchors) {
+        public Repeats {
+            open = List.copyOf(open);
+            anchors = anchors.stream().sorted().toList();
+        }
+    }
+
+    /**
      * What the planner is given.
      *
-     * @param observedRepeats per request, the repeat numbers already observed (never planned again) and when
-     * @param pins            visits that must stay where they are (pinned, or on a locked night)
-     * @param nights          locked and closed nights
-     * @param published       the published plan's placed visits, for stability
+     * @param repeats   per request, what to plan of it; a request without an entry is planned whole (no repeat
+     *                  observed, nothing kept elsewhere)
+     * @param pins      visits that must stay where they are (pinned, or on a locked night)
+     * @param nights    locked and closed nights
+     * @param published the published plan's placed visits ahead of now, for stability
+     * @param notBefore no visit starts before this instant; null for no limit
+     * @param grants    what each program may still spend in this run; null to give each program the hours of its
+     *                  stored grants that cover the planned telescopes and nights, pooled (only for tests that plan
+     *                  without history)
+     * @param occupied  telescope time the run must keep clear of (visits under way)
      */
     public record Input(List<Site> sites, List<Telescope> telescopes, List<Instrument> instruments, List<Program> programs,
-                        List<ObservingRequest> requests, Map<Long, Map<Integer, Instant>> observedRepeats,
+                        List<ObservingRequest> requests, Map<Long, Repeats> repeats,
                         LocalDate firstNight, LocalDate lastNight, List<PlanVisit> pins, List<PlanNight> nights,
-                        List<PlanVisit> published) {}
+                        List<PlanVisit> published, Instant notBefore, List<org.skyrota.planning.model.Grant> grants,
+                        List<Occupied> occupied) {}
 
-    /** The problem and the translations back. */
-    public record Mapped(PlanningProblem problem, Map<String, VisitKey> keyByVisitId, Map<Long, ZoneId> zoneByTelescope) {
+    /**
+     * The problem and the translations back.
+     *
+     * @param unplannable visits of requests that cannot be planned at all (their data or target cannot be read), with
+     *                    why in plain words; they are left out of the problem and of no concern to the run otherwise
+     */
+    public record Mapped(PlanningProblem problem, Map<String, VisitKey> keyByVisitId, Map<Long, ZoneId> zoneByTelescope,
+                         Map<VisitKey, String> unplannable) {
 
         /** The planner's visits as stored plan visits. */
         public List<PlanVisit> visits(PlanResult result) {
@@ -86,11 +111,22 @@ public final class PlanningMapper {
         public boolean covers(VisitKey key) {
             return keyByVisitId.containsValue(key);
         }
+
+        /** The planner's id of a stored visit, if the problem holds it. */
+        public java.util.Optional<String> visitIdOf(VisitKey key) {
+            return keyByVisitId.entrySet().stream().filter(e -> e.getValue().equals(key)).map(Map.Entry::getKey)
+                    .findFirst();
+        }
     }
 
     /** The site-local date of the evening a visit starting at {@code start} belongs to (nights run noon to noon). */
     public static LocalDate nightOf(Instant start, ZoneId zone) {
         return start.atZone(zone).minusHours(12).toLocalDate();
+    }
+
+    /** When the night of {@code night} ends at a stored site: local noon of the next day. */
+    public static Instant nightEnd(Site site, LocalDate night) {
+        return org.skyrota.sky.site.Night.of(SiteMapper.toLocation(site), night).end();
     }
 
     /** As {@link #map(Input, TargetKinds)} without plugins' target kinds: only fixed targets are planned. */
@@ -116,30 +152,50 @@ public final class PlanningMapper {
         List<org.skyrota.planning.model.Instrument> instruments = in.instruments().stream()
                 .filter(i -> zones.containsKey(i.getTelescope().getId()))
                 .map(PlanningMapper::instrument).toList();
+        List<org.skyrota.planning.model.Grant> grants = in.grants() != null ? in.grants()
+                : in.programs().stream().map(p -> org.skyrota.planning.model.Grant.anywhere(String.valueOf(p.getId()),
+                        pooledHours(p, in.firstNight(), in.lastNight(), zones.keySet()))).toList();
+        Map<String, Double> grantedHours = new HashMap<>();
+        grants.forEach(g -> grantedHours.merge(g.programId(), g.hours(), Double::sum));
         List<org.skyrota.planning.model.Program> programs = in.programs().stream()
-                .map(p -> program(p, in.firstNight(), in.lastNight(), zones.keySet())).toList();
+                .map(p -> new org.skyrota.planning.model.Program(String.valueOf(p.getId()), p.getCode(),
+                        grantedHours.getOrDefault(String.valueOf(p.getId()), 0.0), 1.0)).toList();
         Set<String> programIds = programs.stream().map(org.skyrota.planning.model.Program::id).collect(Collectors.toSet());
 
         Map<String, VisitKey> keys = new HashMap<>();
         Map<VisitKey, String> ids = new HashMap<>();
+        Map<VisitKey, String> unplannable = new HashMap<>();
         List<Request> requests = new ArrayList<>();
         for (ObservingRequest r : in.requests()) {
-            if (!programIds.contains(String.valueOf(r.getProgram().getId()))) {
-                continue;
-            }
-            Map<Integer, Instant> observed = in.observedRepeats().getOrDefault(r.getId(), Map.of());
-            List<Integer> open = openRepeats(r.getRepeats(), observed.keySet());
+            Repeats repeats = in.repeats().getOrDefault(r.getId(),
+                    new Repeats(openRepeats(r.getRepeats(), Set.of()), List.of()));
+            List<Integer> open = repeats.open();
             if (open.isEmpty()) {
                 continue;
             }
-            Target target = target(r, kinds);
-            if (target == null) {
+            String why = null;
+            Request request = null;
+            if (!programIds.contains(String.valueOf(r.getProgram().getId()))) {
+                why = "its program " + r.getProgram().getCode() + " is not planned";
+            } else {
+                Target target = target(r, kinds);
+                if (target == null) {
+                    why = "its target of kind '" + r.getTargetKind() + "' cannot be computed by any plugin loaded now";
+                } else {
+                    try {
+                        request = request(r, target, open.size(), repeats.anchors(), in.firstNight(), in.lastNight());
+                    } catch (IllegalArgumentException e) {
+                        why = plainWords(e.getMessage(), r.getId());
+                    }
+                }
+            }
+            if (request == null) {
+                LOG.warn("Request {} left out of the plan: {}", r.getId(), why);
+                for (int n : open) {
+                    unplannable.put(new VisitKey(r.getId(), n), "cannot be planned: " + why);
+                }
                 continue;
             }
-            // Every observation counts, even of a repeat number above a since-lowered count: it was taken all the
-            // same, and the open repeats keep their spacing from it.
-            List<Instant> observedStarts = observed.values().stream().sorted().toList();
-            Request request = request(r, target, open.size(), observedStarts, in.firstNight(), in.lastNight());
             requests.add(request);
             for (int i = 0; i < open.size(); i++) {
                 VisitKey key = new VisitKey(r.getId(), open.get(i));
@@ -157,8 +213,17 @@ public final class PlanningMapper {
             }
         }
         PlanningProblem problem = new PlanningProblem(sites, telescopes, instruments, programs, requests, closures,
-                pins, published, in.firstNight(), in.lastNight(), GRID_MINUTES, CANDIDATE_STEP_MINUTES);
-        return new Mapped(problem, Map.copyOf(keys), Map.copyOf(zones));
+                pins, published, in.firstNight(), in.lastNight(), GRID_MINUTES, CANDIDATE_STEP_MINUTES,
+                in.notBefore(), grants, in.occupied() == null ? List.of() : in.occupied());
+        return new Mapped(problem, Map.copyOf(keys), Map.copyOf(zones), Map.copyOf(unplannable));
+    }
+
+    /** A model check's message about request {@code id}, without the id it repeats (the reason sits beside it). */
+    static String plainWords(String message, long id) {
+        if (message == null || message.isBlank()) {
+            return "its data cannot be read";
+        }
+        return message.replace(" of request " + id, "").replace("request " + id + " ", "");
     }
 
     private static List<Assignment> assignments(List<PlanVisit> visits, Map<VisitKey, String> ids, Set<Long> telescopes) {
@@ -202,17 +267,17 @@ public final class PlanningMapper {
                 Set.copyOf(i.getFilters()), i.getReadoutSeconds(), i.getFilterChangeSeconds(), i.hasCertifiedSolarFilter());
     }
 
-    /** The hours of the program's grants on the planned telescopes whose nights overlap the horizon. */
-    static org.skyrota.planning.model.Program program(Program p, LocalDate first, LocalDate last, Set<Long> telescopes) {
+    /** The hours of the program's stored grants for the planned telescopes whose nights overlap the horizon. */
+    static double pooledHours(Program p, LocalDate first, LocalDate last, Set<Long> telescopes) {
         double hours = 0;
         for (Grant g : p.getGrants()) {
             boolean overlaps = (g.getFirstNight() == null || !g.getFirstNight().isAfter(last))
                     && (g.getLastNight() == null || !g.getLastNight().isBefore(first));
-            if (overlaps && telescopes.contains(g.getTelescopeId())) {
+            if (overlaps && (g.getTelescopeId() == null || telescopes.contains(g.getTelescopeId()))) {
                 hours += g.getHours();
             }
         }
-        return new org.skyrota.planning.model.Program(String.valueOf(p.getId()), p.getCode(), hours, 1.0);
+        return hours;
     }
 
     /**

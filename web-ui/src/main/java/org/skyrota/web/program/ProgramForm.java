@@ -21,8 +21,10 @@ record ProgramForm(
         Boolean active,
         @Size(max = 100) List<@Valid @NotNull GrantForm> grants) {
 
+    /** A grant: on {@code telescopeId}, or at {@code siteId}, or (neither given) anywhere in the network. */
     record GrantForm(
-            @NotNull Long telescopeId,
+            Long telescopeId,
+            Long siteId,
             @NotNull @DecimalMin(value = "0", inclusive = false) @DecimalMax("10000") Double hours,
             @NotNull LocalDate firstNight,
             @NotNull LocalDate lastNight) {
@@ -30,6 +32,11 @@ record ProgramForm(
         @AssertTrue(message = "must not be before firstNight")
         boolean isLastNight() {
             return firstNight == null || lastNight == null || !lastNight.isBefore(firstNight);
+        }
+
+        @AssertTrue(message = "give telescopeId or siteId, not both (neither: the grant pays anywhere)")
+        boolean isSiteId() {
+            return telescopeId == null || siteId == null;
         }
     }
 }

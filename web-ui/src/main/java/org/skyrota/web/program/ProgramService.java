@@ -4,6 +4,7 @@ import java.util.ArrayList;
 import java.util.List;
 
 import org.skyrota.web.equipment.TelescopeRepository;
+import org.skyrota.web.site.SiteRepository;
 import org.skyrota.web.system.AuditLog;
 import org.skyrota.web.system.ConflictException;
 import org.skyrota.web.system.FieldProblem;
@@ -21,12 +22,14 @@ public class ProgramService {
 
     private final ProgramRepository programs;
     private final TelescopeRepository telescopes;
+    private final SiteRepository sites;
     private final AuditLog audit;
 
-    ProgramService(ProgramRepository programs, TelescopeRepository telescopes, AuditLog audit) {
+    ProgramService(ProgramRepository programs, TelescopeRepository telescopes, SiteRepository sites, AuditLog audit) {
         this.audit = audit;
         this.programs = programs;
         this.telescopes = telescopes;
+        this.sites = sites;
     }
 
     @Transactional(readOnly = true)
@@ -92,10 +95,13 @@ public class ProgramService {
         List<ProgramForm.GrantForm> given = form.grants() == null ? List.of() : form.grants();
         for (int i = 0; i < given.size(); i++) {
             ProgramForm.GrantForm g = given.get(i);
-            if (!telescopes.existsById(g.telescopeId())) {
+            if (g.telescopeId() != null && !telescopes.existsById(g.telescopeId())) {
                 problems.add(new FieldProblem("grants[" + i + "].telescopeId", "names no stored telescope: " + g.telescopeId()));
             }
-            grants.add(new Grant(g.telescopeId(), g.hours(), g.firstNight(), g.lastNight()));
+            if (g.siteId() != null && !sites.existsById(g.siteId())) {
+                problems.add(new FieldProblem("grants[" + i + "].siteId", "names no stored site: " + g.siteId()));
+            }
+            grants.add(new Grant(g.telescopeId(), g.siteId(), g.hours(), g.firstNight(), g.lastNight()));
         }
         if (!problems.isEmpty()) {
             throw new InvalidParametersException(problems);

@@ -8,6 +8,7 @@ record ProgramView(long id, long version, String code, String title, String prin
 
     static ProgramView of(Program p) {
         return new ProgramView(p.getId(), p.getVersion(), p.getCode(), p.getTitle(), p.getPrincipalInvestigator(), p.isActive(),
-                p.getGrants().stream().map(g -> new ProgramForm.GrantForm(g.getTelescopeId(), g.getHours(), g.getFirstNight(), g.getLastNight())).toList());
+                p.getGrants().stream().map(g -> new ProgramForm.GrantForm(g.getTelescopeId(), g.getSiteId(), g.getHours(),
+                        g.getFirstNight(), g.getLastNight())).toList());
     }
 }

@@ -15,12 +15,17 @@ public final class StandingReports {
 
     /** The repeats whose deciding report is {@code done}, with that report. */
     public static Map<VisitKey, ObservationReport> done(List<ObservationReport> all) {
-        Map<VisitKey, ObservationReport> latest = all.stream()
-                .filter(r -> r.getOutcome() != Outcome.PARTIAL)
-                .collect(Collectors.toMap(r -> new VisitKey(r.getRequestId(), r.getRepeatNo()), r -> r,
-                        (a, b) -> a.getId() > b.getId() ? a : b));
+        Map<VisitKey, ObservationReport> latest = deciding(all);
         latest.values().removeIf(r -> r.getOutcome() != Outcome.DONE);
         return latest;
+    }
+
+    /** Per repeat, the report that decides it: the latest {@code done} or {@code failed} one. */
+    public static Map<VisitKey, ObservationReport> deciding(List<ObservationReport> all) {
+        return all.stream()
+                .filter(r -> r.getOutcome() != Outcome.PARTIAL)
+                .collect(Collectors.toMap(r -> new VisitKey(r.getRequestId(), r.getRepeatNo()), r -> r,
+                        (a, b) -> a.getId() > b.getId() ? a : b, java.util.HashMap::new));
     }
 
     private StandingReports() {

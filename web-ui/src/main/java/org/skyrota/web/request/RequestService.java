@@ -14,6 +14,7 @@ import org.skyrota.web.system.FieldProblem;
 import org.skyrota.web.system.InvalidParametersException;
 import org.skyrota.web.system.NotFoundException;
 import org.skyrota.web.system.PageView;
+import org.springframework.context.ApplicationEventPublisher;
 import org.springframework.data.domain.Pageable;
 import org.springframework.stereotype.Service;
 import org.springframework.transaction.annotation.Transactional;
@@ -31,9 +32,11 @@ public class RequestService {
     private final AuditLog audit;
     private final TargetKinds targetKinds;
     private final RequestListing listing;
+    private final ApplicationEventPublisher events;
 
     RequestService(ObservingRequestRepository requests, ProgramRepository programs, AuditLog audit,
-                   TargetKinds targetKinds, RequestListing listing) {
+                   TargetKinds targetKinds, RequestListing listing, ApplicationEventPublisher events) {
+        this.events = events;
         this.listing = listing;
         this.audit = audit;
         this.targetKinds = targetKinds;
@@ -107,10 +110,16 @@ public class RequestService {
         if (reason != null && reason.length() > 500) {
             throw new InvalidParametersException(List.of(new FieldProblem("reason", "may be at most 500 characters")));
         }
+        if (target == RequestState.COMPLETED || target == RequestState.EXPIRED) {
+            throw new ConflictException("Only the server completes or expires a request, when its repeats are observed"
+                    + " or its nights have passed");
+        }
         RequestView before = RequestView.of(r);
+        RequestState from = r.getState();
         r.moveTo(target, reason == null ? null : reason.trim());
         RequestView after = RequestView.of(requests.saveAndFlush(r));
         audit.record("state:" + target.name().toLowerCase(), KIND, id, before, after);
+        events.publishEvent(new RequestStateChanged(id, from, target));
         return after;
     }
 

@@ -54,6 +54,14 @@ public class PlannerRun extends StoredEntity {
     @Column(name = "revision_id")
     private Long revisionId;
 
+    /** What a finished run did ({@link RunSummary}, as JSON). */
+    @Column(name = "summary_json")
+    private String summaryJson;
+
+    /** Why the run was started, when not by hand (an alert names itself here). */
+    @Column(length = 200)
+    private String purpose;
+
     protected PlannerRun() {}
 
     public PlannerRun(LocalDate firstNight, LocalDate lastNight, String siteIds, int timeLimitSeconds, String weightsJson,
@@ -135,5 +143,21 @@ public class PlannerRun extends StoredEntity {
 
     public void setRevisionId(Long revisionId) {
         this.revisionId = revisionId;
+    }
+
+    public String getSummaryJson() {
+        return summaryJson;
+    }
+
+    public void setSummaryJson(String summaryJson) {
+        this.summaryJson = summaryJson;
+    }
+
+    public String getPurpose() {
+        return purpose;
+    }
+
+    public void setPurpose(String purpose) {
+        this.purpose = purpose == null || purpose.length() <= 200 ? purpose : purpose.substring(0, 200);
     }
 }

@@ -31,13 +31,13 @@ import org.skyrota.planning.solver.SolveOptions;
 import org.skyrota.web.account.CurrentUser;
 import org.skyrota.web.plan.ConditionsClosures;
 import org.skyrota.web.plan.PlanInputs;
+import org.skyrota.web.plan.Drafts;
+import org.skyrota.web.plan.TermKeeper;
+import org.skyrota.web.plan.TermState;
+import org.skyrota.web.site.Site;
 import org.skyrota.web.plan.PlanNight;
 import org.skyrota.web.plan.PlannerConfig;
 import org.skyrota.web.plan.PlanRevision;
-import org.skyrota.web.plan.PlanRevisionRepository;
-import org.skyrota.web.plan.PlanVisit;
-import org.skyrota.web.plan.PlanningMapper;
-import org.skyrota.web.plan.VisitKey;
 import org.skyrota.web.site.SiteRepository;
 import org.skyrota.web.system.AuditLog;
 import org.skyrota.web.system.ConflictException;
@@ -70,7 +70,8 @@ public class RunService {
     static final int MAX_NIGHTS = 62;
 
     private final PlannerRunRepository runs;
-    private final PlanRevisionRepository revisions;
+    private final Drafts drafts;
+    private final TermKeeper keeper;
     private final PlanInputs inputs;
     private final SiteRepository sites;
     private final PlannerConfig planners;
@@ -86,14 +87,15 @@ public class RunService {
     /** Runs being cancelled, with who cancelled them (the worker ends the run and names them). */
     private final Map<Long, String> cancelling = new ConcurrentHashMap<>();
 
-    RunService(PlannerRunRepository runs, PlanRevisionRepository revisions, PlanInputs inputs, PlannerConfig planners,
+    RunService(PlannerRunRepository runs, Drafts drafts, TermKeeper keeper, PlanInputs inputs, PlannerConfig planners,
                RunEvents events, AuditLog audit, JsonMapper json, PlatformTransactionManager transactions,
                ConditionsClosures conditions, SiteRepository sites, java.time.Clock clock) {
+        this.drafts = drafts;
+        this.keeper = keeper;
         this.clock = clock;
         this.conditions = conditions;
         this.runs = runs;
         this.sites = sites;
-        this.revisions = revisions;
         this.inputs = inputs;
         this.planners = planners;
         this.events = events;
@@ -265,52 +267,56 @@ public class RunService {
                     .map(Long::valueOf).collect(Collectors.toSet());
             LocalDate first = run.getFirstNight();
             LocalDate last = run.getLastNight();
+            keeper.catchUp();
             List<PlanNight> fed = new ArrayList<>();
             List<String> feedNotes = new ArrayList<>();
-            PlanningMapper.Mapped mapped = tx.execute(status -> {
-                PlanRevision draft = revisions.findFirstByStateOrderByIdDesc(PlanRevision.State.DRAFT).orElse(null);
-                List<PlanVisit> pins = new ArrayList<>();
-                List<PlanNight> nights = new ArrayList<>();
+            PlanInputs.Problem problem = tx.execute(status -> {
+                TermState term = inputs.term();
+                List<PlanNight> draftNights = term.draftNights();
                 ConditionsClosures.Closures closures = conditions.between(first, last);
                 feedNotes.addAll(closures.notes());
                 for (PlanNight n : closures.nights()) {
                     // A coordinator's own lock or closure of that night stands.
-                    if (draft == null || draft.getNights().stream().noneMatch(d -> d.is(n.getTelescopeId(), n.getNight()))) {
+                    if (draftNights.stream().noneMatch(d -> d.is(n.getTelescopeId(), n.getNight()))) {
                         fed.add(n);
                     }
                 }
-                nights.addAll(fed);
-                if (draft != null) {
-                    nights.addAll(draft.getNights());
-                    for (PlanVisit v : draft.getVisits()) {
-                        if (v.isPlaced() && !v.getNight().isBefore(first) && !v.getNight().isAfter(last)
-                                && (v.isPinned() || lockedNight(draft, v))) {
-                            pins.add(v);
-                        }
-                    }
-                }
-                return inputs.problem(first, last, siteIds, pins, nights);
+                List<PlanNight> nights = new ArrayList<>(fed);
+                nights.addAll(draftNights);
+                return inputs.forRun(term, first, last, siteIds, nights);
             });
             SolveOptions options = SolveOptions.of(Duration.ofSeconds(run.getTimeLimitSeconds())).withWeights(weights)
                     .withCancellation(cancellations.get(id));
             long limitNanos = Duration.ofSeconds(run.getTimeLimitSeconds()).toNanos();
-            PlanResult result = planners.fresh().solve(mapped.problem(), options, p -> events.progress(id, progressData(p, limitNanos)));
+            PlanResult result = planners.fresh().replanFromPublished(problem.mapped().problem(), options,
+                    p -> events.progress(id, progressData(p, limitNanos)));
             if (cancelling.containsKey(id) || Thread.currentThread().isInterrupted()) {
                 // The best plan so far is not written as a draft: a cancelled run changes nothing but its own state.
                 endIfActive(id, RunState.CANCELLED, result.score().toString(),
                         cancelling.getOrDefault(id, "cancelled"));
                 return;
             }
-            tx.executeWithoutResult(status -> writeDraft(id, mapped, result, first, last, fed, feedNotes));
+            String siteWords = siteIds == null || siteIds.isEmpty() ? null : tx.execute(status ->
+                    sites.findAllById(siteIds).stream().map(Site::getName).sorted().collect(Collectors.joining(", ")));
+            RunSummary summary = RunSummary.of(problem, result);
+            tx.executeWithoutResult(status -> {
+                PlanRevision draft = drafts.applyRun(id, problem, result, fed, siteWords);
+                PlannerRun r = find(id);
+                String message = summary.sentence()
+                        + (fed.isEmpty() ? "" : " Telescope nights closed by conditions feeds: " + fed.size() + ".")
+                        + (feedNotes.isEmpty() ? "" : " " + String.join("; ", feedNotes) + ".");
+                r.end(RunState.FINISHED, clock.instant(), result.score().toString(), message);
+                r.setSummaryJson(json.writeValueAsString(summary));
+                r.setRevisionId(draft.getId());
+            });
             events.done(id, doneData(find(id)));
         } catch (RuntimeException | Error e) {
             boolean cancelled = cancelling.containsKey(id);
             if (!cancelled) {
                 log.warn("Planner run {} failed", id, e);
             }
-            String why = e.getMessage() == null ? e.getClass().getSimpleName() : e.getMessage();
             endIfActive(id, cancelled ? RunState.CANCELLED : RunState.FAILED, null,
-                    cancelled ? cancelling.getOrDefault(id, "cancelled") : "The planner failed: " + why);
+                    cancelled ? cancelling.getOrDefault(id, "cancelled") : failure(e));
         } finally {
             futures.remove(id);
             cancellations.remove(id);
@@ -318,53 +324,23 @@ public class RunService {
         }
     }
 
-    private static boolean lockedNight(PlanRevision draft, PlanVisit v) {
-        return draft.getNights().stream().anyMatch(n -> n.getState() == PlanNight.State.LOCKED
-                && n.is(v.getTelescopeId(), v.getNight()));
-    }
-
     /**
-     * The new draft: the run's visits, plus the old draft's placements the run did not cover (other nights, other
-     * sites, or kept by a pin); the old draft is retired. The published plan is not touched.
+     * Why a run failed, in plain words: the planner's own message where it gives one, never an exception's class;
+     * the details are in the server's log.
      */
-    private void writeDraft(long id, PlanningMapper.Mapped mapped, PlanResult result, LocalDate first, LocalDate last,
-                            List<PlanNight> fed, List<String> feedNotes) {
-        PlannerRun run = find(id);
-        PlanRevision old = revisions.findFirstByStateOrderByIdDesc(PlanRevision.State.DRAFT).orElse(null);
-        Map<VisitKey, PlanVisit> visits = new LinkedHashMap<>();
-        for (PlanVisit v : mapped.visits(result)) {
-            visits.put(v.key(), v);
+    static String failure(Throwable e) {
+        Throwable cause = e;
+        while (cause.getCause() != null && cause.getCause() != cause
+                && (cause.getMessage() == null || cause.getMessage().isBlank())) {
+            cause = cause.getCause();
         }
-        PlanRevision draft = new PlanRevision(PlanRevision.State.DRAFT, first, last);
-        if (old != null) {
-            Set<String> planned = mapped.problem().telescopes().stream().map(t -> t.id()).collect(Collectors.toSet());
-            Map<VisitKey, PlanVisit> keep = new HashMap<>();
-            for (PlanVisit v : old.getVisits()) {
-                boolean outside = v.isPlaced() && (v.getNight().isBefore(first) || v.getNight().isAfter(last)
-                        || !planned.contains(String.valueOf(v.getTelescopeId())));
-                PlanVisit now = visits.get(v.key());
-                boolean runLeftItOut = now == null || !now.isPlaced();
-                if (outside && (runLeftItOut || v.isPinned() || lockedNight(old, v))) {
-                    keep.put(v.key(), v.copy());
-                }
-            }
-            visits.putAll(keep);
-            old.getNights().forEach(n -> draft.getNights().add(n.copy()));
-            draft.widenTo(old.getFirstNight(), old.getLastNight());
-            old.setState(PlanRevision.State.RETIRED);
+        String why = cause.getMessage();
+        if (why == null || why.isBlank() || cause instanceof NullPointerException || cause instanceof ClassCastException
+                || cause instanceof IndexOutOfBoundsException || cause instanceof Error) {
+            return "The planner could not finish this run because of a fault in the server; it is in the server's log."
+                    + " Nothing was written to the draft.";
         }
-        fed.forEach(n -> draft.getNights().add(n.copy()));
-        draft.getVisits().addAll(visits.values());
-        draft.setScore(result.score().toString());
-        draft.setRunId(id);
-        revisions.saveAndFlush(draft);
-        long placed = result.planned().size();
-        run.end(RunState.FINISHED, clock.instant(), result.score().toString(),
-                "placed " + placed + " of " + (placed + result.leftOut().size()) + " visits"
-                        + (result.hardViolations().isEmpty() ? "" : "; hard rules broken: " + result.hardViolations().size())
-                        + (fed.isEmpty() ? "" : "; telescope nights closed by conditions feeds: " + fed.size())
-                        + (feedNotes.isEmpty() ? "" : "; " + String.join("; ", feedNotes)));
-        run.setRevisionId(draft.getId());
+        return "The planner could not finish this run: " + why + ". Nothing was written to the draft.";
     }
 
     /** Ends a run that is still queued or running; when the worker and a cancel race, the first one to end it wins. */

@@ -130,7 +130,14 @@ public class ProblemAdvice extends ResponseEntityExceptionHandler {
 
     @ExceptionHandler(ConflictException.class)
     ResponseEntity<Object> conflict(ConflictException e, WebRequest request) {
-        return problem(e, HttpStatus.CONFLICT, ProblemTypes.CONFLICT, "Conflict", e.getMessage(), request);
+        if (e.details().isEmpty()) {
+            return problem(e, HttpStatus.CONFLICT, ProblemTypes.CONFLICT, "Conflict", e.getMessage(), request);
+        }
+        ProblemDetail body = ProblemDetail.forStatusAndDetail(HttpStatus.CONFLICT, e.getMessage());
+        body.setType(ProblemTypes.CONFLICT);
+        body.setTitle("Conflict");
+        e.details().forEach(body::setProperty);
+        return handleExceptionInternal(e, body, new HttpHeaders(), HttpStatus.CONFLICT, request);
     }
 
     @ExceptionHandler(DataIntegrityViolationException.class)

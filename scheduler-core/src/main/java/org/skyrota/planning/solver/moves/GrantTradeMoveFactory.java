@@ -15,8 +15,8 @@ import org.skyrota.planning.domain.Schedule;
 import org.skyrota.planning.domain.Visit;
 
 /**
- * Trade grant time inside one program: place an unplaced visit (taking off the telescope whatever it overlaps) and,
- * if that would take its program over its grant, leave out enough of the program's placed visits of lower value
+ * Trade grant time inside one grant: place an unplaced visit (taking off the telescope whatever it overlaps) and,
+ * if that would take the grant it pays from over, leave out enough of that grant's placed visits of lower value
  * per granted minute to stay within it.
  *
  * <p>Why: the greedy start fills a program's grant in time order, so a program that runs out of grant early in
@@ -46,21 +46,21 @@ public final class GrantTradeMoveFactory implements MoveIteratorFactory<Schedule
         List<Visit> visits = schedule.visits();
         // The solution is back in the step's state whenever a move is asked for, so one index per step is enough.
         Map<Long, List<Visit>> byTelescopeNight = new HashMap<>();
-        Map<String, List<Visit>> placedByProgram = new HashMap<>();
-        Map<String, Long> used = new HashMap<>();
+        Map<Integer, List<Visit>> placedByGrant = new HashMap<>();
+        Map<Integer, Long> used = new HashMap<>();
         List<Visit> unplaced = new ArrayList<>();
         for (Visit o : visits) {
             if (o.isPlaced()) {
                 byTelescopeNight.computeIfAbsent(o.telescopeNightKey(), k -> new ArrayList<>()).add(o);
-                placedByProgram.computeIfAbsent(o.programId(), k -> new ArrayList<>()).add(o);
-                used.merge(o.programId(), (long) o.placedMinutes(), Long::sum);
+                placedByGrant.computeIfAbsent(o.grantIndex(), k -> new ArrayList<>()).add(o);
+                used.merge(o.grantIndex(), (long) o.placedMinutes(), Long::sum);
             } else if (o.candidateCount() > 0 && !o.isPinned()) {
                 unplaced.add(o);
             }
         }
-        Map<String, Long> grants = new HashMap<>();
+        Map<Integer, Long> grants = new HashMap<>();
         for (ProgramGrant g : schedule.grants()) {
-            grants.put(g.programId(), g.grantMinutes());
+            grants.put(g.index(), g.grantMinutes());
         }
         return new Iterator<>() {
             @Override
@@ -105,7 +105,8 @@ public final class GrantTradeMoveFactory implements MoveIteratorFactory<Schedule
                 List<Placement> to = new ArrayList<>();
                 moved.add(v);
                 to.add(p);
-                long programMinutes = used.getOrDefault(v.programId(), 0L) + (end - start);
+                int grantIndex = v.grantOf(p);
+                long grantMinutesUsed = used.getOrDefault(grantIndex, 0L) + (end - start);
                 for (Visit o : byTelescopeNight.getOrDefault(p.telescopeIndex() * 1_000_000L + p.nightEpochDay(),
                         List.of())) {
                     if (o.startMinute() < end && start < o.endMinute()) {
@@ -114,13 +115,13 @@ public final class GrantTradeMoveFactory implements MoveIteratorFactory<Schedule
                         }
                         moved.add(o);
                         to.add(null);
-                        if (o.programId().equals(v.programId())) {
-                            programMinutes -= o.placedMinutes();
+                        if (o.grantIndex() == grantIndex) {
+                            grantMinutesUsed -= o.placedMinutes();
                         }
                     }
                 }
-                Long grant = grants.get(v.programId());
-                if (grant == null || programMinutes <= grant) {
+                Long grant = grants.get(grantIndex);
+                if (grant == null || grantMinutesUsed <= grant) {
                     // No trade needed: the ejection move covers this case, and it also re-fits what it takes off.
                     return null;
                 }
@@ -129,7 +130,7 @@ public final class GrantTradeMoveFactory implements MoveIteratorFactory<Schedule
                 double incoming = (double) v.priorityWeight() * v.nominalMinutes() / (end - start);
                 List<Visit> cheaper = new ArrayList<>();
                 Map<Visit, Double> key = new HashMap<>();
-                for (Visit o : placedByProgram.getOrDefault(v.programId(), List.of())) {
+                for (Visit o : placedByGrant.getOrDefault(grantIndex, List.of())) {
                     double perMinute = (double) o.priorityWeight() * o.nominalMinutes() / o.placedMinutes();
                     if (!o.isPinned() && perMinute < incoming && !moved.contains(o)) {
                         cheaper.add(o);
@@ -138,14 +139,14 @@ public final class GrantTradeMoveFactory implements MoveIteratorFactory<Schedule
                 }
                 cheaper.sort((a, b) -> Double.compare(key.get(a), key.get(b)));
                 for (Visit o : cheaper) {
-                    if (programMinutes <= grant) {
+                    if (grantMinutesUsed <= grant) {
                         break;
                     }
                     moved.add(o);
                     to.add(null);
-                    programMinutes -= o.placedMinutes();
+                    grantMinutesUsed -= o.placedMinutes();
                 }
-                if (programMinutes > grant) {
+                if (grantMinutesUsed > grant) {
                     return null;
                 }
                 return new ReassignMove(moved.toArray(new Visit[0]), to.toArray(new Placement[0]));

@@ -99,13 +99,15 @@ class GrantTradeMoveFactoryTest {
 
     private static Visit visit(String id, String program, int priority, List<Placement> candidates) {
         int n = candidates.size();
-        return new Visit(id, id, 0, program, 1.0, 1.0, priority, priority, 60, 0, new int[] {60}, new int[] {0},
+        Visit v = new Visit(id, id, 0, program, 1.0, 1.0, priority, priority, 60, 0, new int[] {60}, new int[] {0},
                 candidates, new int[n], new int[n], new int[n], new byte[n]);
+        v.setGrants(new int[n]);
+        return v;
     }
 
     private static Schedule schedule(List<Visit> visits, long grantMinutes) {
         return new Schedule(Instant.EPOCH, 5, List.of("scope"), List.of(),
-                List.of(new ProgramGrant("lab", grantMinutes, 1.0)), visits, PlannerWeights.defaults());
+                List.of(new ProgramGrant(0, "lab", grantMinutes, 1.0, "lab's grant")), visits, PlannerWeights.defaults());
     }
 
     /**
