@@ -27,6 +27,9 @@ import java.util.Map;
  * @param program          the program's name or code; not blank
  * @param owner            the user name of the requester; null when the importing user owns it
  * @param notes            free text, may be empty
+ * @param sourceId         what names this record at its source, the same each time the source sends it again (a
+ *                         VOEvent packet's IVORN), so that the server can recognise a record it already stored; null
+ *                         when the source names none
  */
 public record RequestRecord(
         String title,
@@ -47,11 +50,23 @@ public record RequestRecord(
         int priority,
         String program,
         String owner,
-        String notes) {
+        String notes,
+        String sourceId) {
 
     public RequestRecord {
         targetParameters = targetParameters == null ? Map.of() : Map.copyOf(targetParameters);
         exposures = exposures == null ? List.of() : List.copyOf(exposures);
         notes = notes == null ? "" : notes;
+        sourceId = sourceId == null || sourceId.isBlank() ? null : sourceId.strip();
+    }
+
+    /** A record whose source names it by nothing that stays the same when sent again (a row of a file). */
+    public RequestRecord(String title, String targetName, String targetKind, Double raDeg, Double decDeg,
+            Map<String, String> targetParameters, List<ExposureRecord> exposures, Double minAltitudeDeg, String darkness,
+            Double maxMoonIllumination, Double minMoonSeparationDeg, LocalDate earliestNight, LocalDate latestNight,
+            int repeats, int intervalDays, int priority, String program, String owner, String notes) {
+        this(title, targetName, targetKind, raDeg, decDeg, targetParameters, exposures, minAltitudeDeg, darkness,
+                maxMoonIllumination, minMoonSeparationDeg, earliestNight, latestNight, repeats, intervalDays, priority,
+                program, owner, notes, null);
     }
 }

@@ -26,6 +26,7 @@ import org.skyrota.web.site.Site;
 import org.skyrota.web.site.SiteRepository;
 import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
+import org.springframework.beans.factory.annotation.Value;
 import org.springframework.boot.ApplicationArguments;
 import org.springframework.boot.ApplicationRunner;
 import org.springframework.core.annotation.Order;
@@ -36,7 +37,8 @@ import org.springframework.transaction.annotation.Transactional;
 /**
  * With {@code --demo}, fills an empty database with an invented consortium: three sites on
  * three continents in both hemispheres (one at high northern latitude), five telescopes, four
- * programs, about 150 observing requests in every state, and the accounts admin, coordinator,
+ * programs and the target-of-opportunity program that alerts go to (titled as the setting
+ * {@code skyrota.voevent.program} names it), about 150 observing requests in every state, and the accounts admin, coordinator,
  * student and student2, all with the password {@code demo}. A database that holds anything is
  * left alone. Every name here is invented; the targets are real objects by catalogue number with
  * approximate demo coordinates.
@@ -46,6 +48,10 @@ import org.springframework.transaction.annotation.Transactional;
 public class DemoData implements ApplicationRunner {
 
     public static final String PASSWORD = "demo";
+    /** The code of the demo's target-of-opportunity program; its title is what the alert setting names. */
+    public static final String TOO_CODE = "TOO-DEMO";
+    /** The default of the setting {@code skyrota.voevent.program} (the VOEvent plugin's default program). */
+    static final String DEFAULT_ALERT_PROGRAM = "Target of opportunity";
     static final int REQUEST_COUNT = 150;
 
     private static final Logger log = LoggerFactory.getLogger(DemoData.class);
@@ -84,11 +90,13 @@ public class DemoData implements ApplicationRunner {
     private final ObservingRequestRepository requests;
     private final PasswordEncoder encoder;
     private final Clock clock;
+    private final String alertProgram;
 
     DemoData(AccountRepository accounts, SiteRepository sites, TelescopeRepository telescopes, InstrumentRepository instruments,
              ProgramRepository programs, ObservingRequestRepository requests, PasswordEncoder encoder,
-             Clock clock) {
+             Clock clock, @Value("${skyrota.voevent.program:" + DEFAULT_ALERT_PROGRAM + "}") String alertProgram) {
         this.clock = clock;
+        this.alertProgram = alertProgram;
         this.accounts = accounts;
         this.sites = sites;
         this.telescopes = telescopes;
@@ -145,6 +153,7 @@ public class DemoData implements ApplicationRunner {
                         scopes.get(3), 50, scopes.get(4), 70, semesterStart, semesterEnd),
                 program("NEB-DEMO", "Narrow-band images of emission nebulae", "coordinator",
                         scopes.get(1), 40, scopes.get(2), 60, semesterStart, semesterEnd));
+        targetOfOpportunity(scopes, semesterStart, semesterEnd);
 
         Random random = new Random(2027);
         String[] owners = {"student", "student2", "coordinator"};
@@ -216,6 +225,23 @@ public class DemoData implements ApplicationRunner {
         camera.setFilters(filters);
         instruments.save(camera);
         return t;
+    }
+
+    /**
+     * The program alerts go to: a few hours on a telescope at each site over the whole term, so that an alert
+     * anywhere in the sky finds time. Its title is what the setting {@code skyrota.voevent.program} names (by default
+     * "Target of opportunity"), so that alerts reach it as the demo stands; a setting that fits no title keeps the
+     * default title, and then names no program (alerts answer 409 saying so).
+     */
+    private void targetOfOpportunity(List<Telescope> scopes, LocalDate from, LocalDate to) {
+        String title = alertProgram == null ? "" : alertProgram.strip();
+        if (title.isEmpty() || title.length() > 200 || title.equalsIgnoreCase(TOO_CODE)) {
+            title = DEFAULT_ALERT_PROGRAM;
+        }
+        Program p = new Program(TOO_CODE, title, "coordinator");
+        p.setGrants(List.of(new Grant(scopes.get(0).getId(), 6, from, to), new Grant(scopes.get(1).getId(), 8, from, to),
+                new Grant(scopes.get(3).getId(), 8, from, to)));
+        programs.save(p);
     }
 
     private Program program(String code, String title, String lead, Telescope first, double firstHours, Telescope second,

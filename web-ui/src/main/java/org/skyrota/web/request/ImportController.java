@@ -43,10 +43,14 @@ class ImportController {
         return ResponseEntity.status(HttpStatus.CREATED).body(Map.of("imported", stored.size(), "requests", stored));
     }
 
+    /** 201 with the new request, or 200 with the one an earlier packet with the same IVORN made. */
     @PostMapping("/api/alerts")
     ResponseEntity<Alerts.Outcome> alert(InputStream body) throws IOException {
-        Alerts.Outcome outcome = alerts.receive(body);
-        return ResponseEntity.created(URI.create("/api/requests/" + outcome.request().id())).body(outcome);
+        Alerts.Received received = alerts.receive(body);
+        Alerts.Outcome outcome = received.outcome();
+        return received.created()
+                ? ResponseEntity.created(URI.create("/api/requests/" + outcome.request().id())).body(outcome)
+                : ResponseEntity.ok(outcome);
     }
 
     /** "text/csv; charset=UTF-8" is "text/csv". */

@@ -114,6 +114,16 @@ public class ObservingRequest extends StoredEntity {
     @Column(name = "param_value", nullable = false, length = 200)
     private Map<String, String> targetParameters = new LinkedHashMap<>();
 
+    /**
+     * The IVORN of the VOEvent packet this request was made from, or null when it was not made from an alert. Unique:
+     * a packet sent again finds this request.
+     */
+    @Column(name = "alert_ivorn", length = MAX_IVORN_LENGTH, unique = true)
+    private String alertIvorn;
+
+    /** The longest IVORN stored (IVORNs are URIs of some tens of characters). */
+    public static final int MAX_IVORN_LENGTH = 500;
+
     protected ObservingRequest() {}
 
     public ObservingRequest(Program program, String owner) {
@@ -251,5 +261,14 @@ public class ObservingRequest extends StoredEntity {
 
     public Map<String, String> getTargetParameters() {
         return Map.copyOf(targetParameters);
+    }
+
+    /** Marks the request as made from the VOEvent packet {@code ivorn} (at most {@link #MAX_IVORN_LENGTH} characters). */
+    public void setAlertIvorn(String ivorn) {
+        this.alertIvorn = ivorn;
+    }
+
+    public String getAlertIvorn() {
+        return alertIvorn;
     }
 }

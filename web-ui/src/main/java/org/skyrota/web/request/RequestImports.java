@@ -2,6 +2,7 @@ package org.skyrota.web.request;
 
 import java.io.IOException;
 import java.io.InputStream;
+import java.time.LocalDate;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
@@ -29,6 +30,14 @@ import org.springframework.transaction.support.TransactionTemplate;
  */
 @Service
 public class RequestImports {
+
+    /**
+     * The nights an imported request may name: those the server plans in. Dates far outside them are mistakes, and
+     * years before 1 do not come back from storage as they went in (a request's last night came back before its
+     * first, and every planner run after it failed).
+     */
+    static final LocalDate FIRST_NIGHT = LocalDate.of(1900, 1, 1);
+    static final LocalDate LAST_NIGHT = LocalDate.of(2200, 12, 31);
 
     private final PluginRegistry plugins;
     private final RequestService requests;
@@ -113,6 +122,11 @@ public class RequestImports {
                 problems.add(new FieldProblem(where + "darkness", "must be astronomical, nautical or civil: " + r.darkness()));
             }
         }
+        night(where + "earliestNight", r.earliestNight(), problems);
+        night(where + "latestNight", r.latestNight(), problems);
+        if (r.earliestNight() != null && r.latestNight() != null && r.latestNight().isBefore(r.earliestNight())) {
+            problems.add(new FieldProblem(where + "latestNight", "must not be before earliestNight (" + r.earliestNight() + ")"));
+        }
         RequestForm form = new RequestForm(null, programId == null ? -1L : programId, r.owner(), r.targetName(),
                 r.raDeg() == null ? null : Double.toString(r.raDeg()), r.decDeg() == null ? null : Double.toString(r.decDeg()),
                 r.exposures().stream().map(e -> new RequestForm.ExposureForm(e.filter(), e.seconds(), e.count())).toList(),
@@ -126,6 +140,12 @@ public class RequestImports {
             throw new InvalidParametersException(problems);
         }
         return form;
+    }
+
+    private static void night(String field, LocalDate night, List<FieldProblem> problems) {
+        if (night != null && (night.isBefore(FIRST_NIGHT) || night.isAfter(LAST_NIGHT))) {
+            problems.add(new FieldProblem(field, "must lie from " + FIRST_NIGHT + " to " + LAST_NIGHT + ": " + night));
+        }
     }
 
     private static Optional<Program> program(String codeOrTitle, List<Program> stored) {

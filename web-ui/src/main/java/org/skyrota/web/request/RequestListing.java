@@ -45,7 +45,7 @@ class RequestListing {
     private static final String COLUMNS = "id, version, program_id, owner, target_name, ra_deg, dec_deg, min_altitude_deg,"
             + " darkness, min_moon_separation_deg, max_moon_illumination, earliest_night, latest_night, repeats,"
             + " repeat_interval_hours, repeat_tolerance_hours, priority, state, rejection_reason, created_at, updated_at,"
-            + " target_kind";
+            + " target_kind, alert_ivorn";
 
     private final NamedParameterJdbcTemplate jdbc;
 
@@ -143,7 +143,8 @@ class RequestListing {
                 rs.getInt("repeats"), rs.getObject("repeat_interval_hours", Double.class),
                 rs.getObject("repeat_tolerance_hours", Double.class), rs.getInt("priority"),
                 RequestState.valueOf(rs.getString("state")), rs.getString("rejection_reason"),
-                instant(rs, "created_at"), instant(rs, "updated_at"), rs.getString("target_kind"), new LinkedHashMap<>());
+                instant(rs, "created_at"), instant(rs, "updated_at"), rs.getString("target_kind"), new LinkedHashMap<>(),
+                rs.getString("alert_ivorn"));
     }
 
     private static Instant instant(ResultSet rs, String column) throws SQLException {

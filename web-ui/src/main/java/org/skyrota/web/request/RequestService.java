@@ -71,6 +71,11 @@ public class RequestService {
     }
 
     public RequestView create(RequestForm form) {
+        return create(form, null);
+    }
+
+    /** Creates the request made from the VOEvent packet {@code alertIvorn} (null: not from an alert). */
+    RequestView create(RequestForm form, String alertIvorn) {
         CurrentUser user = CurrentUser.get();
         String owner = form.owner() == null || form.owner().isBlank() ? user.username() : form.owner().trim();
         if (!user.reviewer() && !owner.equals(user.username())) {
@@ -78,6 +83,7 @@ public class RequestService {
         }
         ObservingRequest r = new ObservingRequest(referencedProgram(form.programId()), owner);
         apply(form, r);
+        r.setAlertIvorn(alertIvorn);
         RequestView created = RequestView.of(requests.saveAndFlush(r));
         audit.record("create", KIND, created.id(), null, created);
         return created;

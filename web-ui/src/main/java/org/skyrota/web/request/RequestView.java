@@ -5,7 +5,10 @@ import java.time.LocalDate;
 import java.util.List;
 import java.util.Map;
 
-/** A stored observing request as the API shows it; coordinates in decimal degrees (0 for a moving target's). */
+/**
+ * A stored observing request as the API shows it; coordinates in decimal degrees (0 for a moving target's).
+ * {@code alertIvorn} is the IVORN of the VOEvent packet the request was made from, or null.
+ */
 record RequestView(
         long id,
         long version,
@@ -30,7 +33,8 @@ record RequestView(
         Instant createdAt,
         Instant updatedAt,
         String targetKind,
-        Map<String, String> targetParameters) {
+        Map<String, String> targetParameters,
+        String alertIvorn) {
 
     static RequestView of(ObservingRequest r) {
         return new RequestView(r.getId(), r.getVersion(), r.getProgram().getId(), r.getOwner(), r.getTargetName(),
@@ -39,6 +43,6 @@ record RequestView(
                 r.getMinAltitudeDeg(), r.getDarkness(), r.getMinMoonSeparationDeg(), r.getMaxMoonIllumination(),
                 r.getEarliestNight(), r.getLatestNight(), r.getRepeats(),
                 r.getRepeatIntervalHours(), r.getRepeatToleranceHours(), r.getPriority(), r.getState(), r.getRejectionReason(),
-                r.getCreatedAt(), r.getUpdatedAt(), r.getTargetKind(), r.getTargetParameters());
+                r.getCreatedAt(), r.getUpdatedAt(), r.getTargetKind(), r.getTargetParameters(), r.getAlertIvorn());
     }
 }

@@ -56,7 +56,7 @@ class DemoDataTest {
         Set<String> continents = all.stream().map(s -> ZoneId.of(s.getTimeZone()).getId().split("/")[0]).collect(Collectors.toSet());
         assertThat(continents).hasSize(3);
         assertThat(telescopes.count()).isEqualTo(5);
-        assertThat(programs.count()).isEqualTo(4);
+        assertThat(programs.count()).as("four programs and the one alerts go to").isEqualTo(5);
 
         List<ObservingRequest> all150 = requests.findAll();
         assertThat(all150).hasSize(DemoData.REQUEST_COUNT);

@@ -15,7 +15,8 @@ public final class AlertRequests {
 
     /**
      * The request for an alert: a fixed target at the alert's position, open from the night of the
-     * event for {@link AlertSettings#validityNights()} nights, one visit.
+     * event for {@link AlertSettings#validityNights()} nights, one visit. Its {@link RequestRecord#sourceId()} is the
+     * packet's IVORN, by which the server knows a packet sent again.
      *
      * <p>The night of the event is taken in mean solar time at Greenwich (the date of the event time
      * minus 12 hours), because a packet names no site: for a site far east or west that night may be
@@ -57,6 +58,7 @@ public final class AlertRequests {
                 priority,
                 settings.program(),
                 null,
-                notes.toString());
+                notes.toString(),
+                alert.ivorn());
     }
 }

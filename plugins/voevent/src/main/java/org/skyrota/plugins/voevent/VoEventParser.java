@@ -39,6 +39,12 @@ import org.xml.sax.SAXParseException;
 public final class VoEventParser {
 
     public static final String NAMESPACE = "http://www.ivoa.net/xml/VOEvent/v2.0";
+    /**
+     * The first and the last moment of the years an event time may lie in: those the server plans in (its nights run
+     * from 1900-01-01 to 2200-12-31). A time outside them is a mistake in the packet, not an event to observe.
+     */
+    public static final Instant EARLIEST_EVENT = Instant.parse("1900-01-01T00:00:00Z");
+    public static final Instant LATEST_EVENT = Instant.parse("2200-12-31T23:59:59.999999999Z");
     /** Alerts are small; a larger packet is refused before it is parsed. */
     public static final int MAX_BYTES = 1024 * 1024;
 
@@ -111,6 +117,10 @@ public final class VoEventParser {
         Element isoTime = required(required(time, "TimeInstant", "AstroCoords/Time/TimeInstant"), "ISOTime",
                 "AstroCoords/Time/TimeInstant/ISOTime");
         Instant eventTime = instant(text(isoTime), "ISOTime");
+        if (eventTime.isBefore(EARLIEST_EVENT) || eventTime.isAfter(LATEST_EVENT)) {
+            throw new PluginException("ISOTime", "the event time (ISOTime) must lie from 1900-01-01 to 2200-12-31, UTC: \""
+                    + text(isoTime) + "\"");
+        }
 
         Element position = child(coords, "Position2D");
         if (position == null) {

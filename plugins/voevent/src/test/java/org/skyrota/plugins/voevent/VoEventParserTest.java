@@ -140,6 +140,43 @@ class VoEventParserTest {
         assertThatThrownBy(() -> parse(xml, false)).as(label).isInstanceOf(PluginException.class).hasMessageContaining(reason);
     }
 
+    /**
+     * Event times are read only from 1900-01-01 to 2200-12-31 (UTC), the years the server plans in; a time outside
+     * them is refused naming the element. Year 1 once became an accepted request whose nights came back from storage
+     * out of order.
+     */
+    @ParameterizedTest(name = "{0}")
+    @CsvSource({"0001-01-01T00:00:00", "0000-06-01T00:00:00", "-1000-01-01T00:00:00", "1899-12-31T23:59:59.999",
+        "2201-01-01T00:00:00", "+10000-01-01T00:00:00", "1900-01-01T01:00:00+02:00"})
+    void eventTimesOutsideTheYearsPlannedAreRefusedNamingIsoTime(String time) throws Exception {
+        String xml = packet().replace("2027-03-01T01:58:30.25", time);
+        assertThatThrownBy(() -> parse(xml, false)).isInstanceOf(PluginException.class)
+                .hasMessageContaining("1900-01-01").hasMessageContaining("2200-12-31")
+                .extracting(e -> ((PluginException) e).field()).isEqualTo("ISOTime");
+
+        ImportResult refused = new VoEventImporter(AlertSettings.defaults())
+                .read(new ByteArrayInputStream(xml.getBytes(StandardCharsets.UTF_8)));
+        assertThat(refused.requests()).isEmpty();
+        assertThat(refused.problems()).singleElement().satisfies(p -> assertThat(p.field()).isEqualTo("ISOTime"));
+    }
+
+    @ParameterizedTest
+    @CsvSource({"1900-01-01T00:00:00, 1900-01-01T00:00:00Z", "2200-12-31T23:59:59.999, 2200-12-31T23:59:59.999Z",
+        "1900-01-01T01:00:00+01:00, 1900-01-01T00:00:00Z"})
+    void theFirstAndLastMomentsOfThoseYearsAreRead(String time, String instant) throws Exception {
+        assertThat(parse(packet().replace("2027-03-01T01:58:30.25", time), false).eventTime()).isEqualTo(Instant.parse(instant));
+    }
+
+    @Test
+    void theRequestCarriesThePacketsIvornAsItsSourceIdentifier() throws Exception {
+        ImportResult read = new VoEventImporter(AlertSettings.defaults())
+                .read(new ByteArrayInputStream(packet().getBytes(StandardCharsets.UTF_8)));
+        assertThat(read.requests()).singleElement().satisfies(r -> assertThat(r.sourceId()).isEqualTo("ivo://skyrota.test/alerts#1"));
+        String spaced = packet().replace("ivorn=\"ivo://skyrota.test/alerts#1\"", "ivorn=\"  ivo://skyrota.test/alerts#1 \"");
+        assertThat(AlertRequests.toRequest(parse(spaced, false), AlertSettings.defaults()).sourceId())
+                .isEqualTo("ivo://skyrota.test/alerts#1");
+    }
+
     @Test
     void externalEntitiesAreNeverRead(@TempDir Path dir) throws Exception {
         Path secret = Files.writeString(dir.resolve("secret.txt"), "do-not-read-me");
