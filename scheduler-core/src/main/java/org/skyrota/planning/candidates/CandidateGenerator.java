@@ -3,7 +3,6 @@ package org.skyrota.planning.candidates;
 import java.time.Duration;
 import java.time.Instant;
 import java.time.LocalDate;
-import java.time.LocalDateTime;
 import java.time.ZoneOffset;
 import java.util.ArrayList;
 import java.util.Comparator;
@@ -33,6 +32,7 @@ import org.skyrota.planning.model.Telescope;
 import org.skyrota.planning.sky.SkyConditions;
 import org.skyrota.planning.sky.SkyModel;
 import org.skyrota.planning.sky.SkyWindow;
+import org.skyrota.sky.site.Night;
 
 /**
  * Turns a {@link PlanningProblem} into a {@link Schedule}: for every visit, every telescope that can take it,
@@ -230,8 +230,7 @@ public final class CandidateGenerator {
 
         /** The night (date of the evening, local noon to local noon) an instant belongs to at a site. */
         static LocalDate nightOf(Site site, Instant instant) {
-            LocalDateTime local = LocalDateTime.ofInstant(instant, site.nightZone());
-            return local.getHour() < 12 ? local.toLocalDate().minusDays(1) : local.toLocalDate();
+            return Night.containing(site.nightZone(), instant).date();
         }
     }
 
