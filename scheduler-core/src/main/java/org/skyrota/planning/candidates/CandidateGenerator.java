@@ -32,6 +32,7 @@ import org.skyrota.planning.model.Telescope;
 import org.skyrota.planning.sky.SkyConditions;
 import org.skyrota.planning.sky.SkyModel;
 import org.skyrota.planning.sky.SkyWindow;
+import org.skyrota.planning.sky.TelescopeWindows;
 import org.skyrota.sky.site.Night;
 
 /**
@@ -571,13 +572,11 @@ public final class CandidateGenerator {
             return false;
         }
 
+        /** The shared rule ({@link TelescopeWindows}), cached per site, minimum altitude and night. */
         private List<SkyWindow> windows(Site site, Telescope telescope, LocalDate night) {
-            ObservingLimits l = request.limits();
-            double minAlt = Math.max(l.minAltitudeDeg(), telescope.minAltitudeDeg());
-            ObservingLimits effective = new ObservingLimits(minAlt, l.maxAirmass(), l.darkness(),
-                    l.minMoonSeparationDeg(), l.maxMoonIllumination(), l.minSunSeparationDeg());
+            double minAlt = TelescopeWindows.limitsOn(request.limits(), telescope).minAltitudeDeg();
             return windowCache.computeIfAbsent(site.id() + "|" + minAlt + "|" + night,
-                    key -> sky.windows(site, request.target(), effective, night));
+                    key -> TelescopeWindows.windows(sky, site, telescope, request, night));
         }
 
         private SkyConditions conditionsAt(int siteIndex, Site site, int minute) {
@@ -586,13 +585,7 @@ public final class CandidateGenerator {
         }
 
         private Instrument bestInstrument(Telescope telescope) {
-            for (Instrument i : problem.instruments()) {
-                if (i.telescopeId().equals(telescope.id()) && i.filters().containsAll(request.filters())
-                        && (!request.target().solar() || i.certifiedSolarFilter())) {
-                    return i;
-                }
-            }
-            return null;
+            return TelescopeWindows.instrumentFor(request, telescope, problem.instruments()).orElse(null);
         }
 
         private Instrument anyInstrument(Telescope telescope) {
