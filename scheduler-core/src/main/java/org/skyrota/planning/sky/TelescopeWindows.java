@@ -13,6 +13,7 @@ import org.skyrota.planning.model.Instrument;
 import org.skyrota.planning.model.ObservingLimits;
 import org.skyrota.planning.model.Request;
 import org.skyrota.planning.model.Site;
+import org.skyrota.planning.model.Target;
 import org.skyrota.planning.model.Telescope;
 
 /**
@@ -81,21 +82,29 @@ public final class TelescopeWindows {
     }
 
     /**
-     * The request's windows on the telescope from night {@code from} to night {@code to}, in time order, asked in one
-     * batch where the sky model has a batch path (fixed and moving targets; the Sun night by night). Does not ask
+     * The request's windows on the telescope from night {@code from} to night {@code to}, in time order. Does not ask
      * whether the telescope can take the request ({@link #instrumentFor}).
      */
     public static List<SkyWindow> windows(SkyModel sky, Site site, Telescope telescope, Request request,
                                           LocalDate from, LocalDate to) {
-        ObservingLimits limits = limitsOn(request.limits(), telescope);
-        if (request.target().solar() && !request.target().isMoving()) {
+        return windows(sky, site, request.target(), limitsOn(request.limits(), telescope), from, to);
+    }
+
+    /**
+     * A target's windows at a site under the given limits and the site's horizon profile, from night {@code from} to
+     * night {@code to}, in time order: asked in one batch where the sky model has a batch path (fixed and moving
+     * targets), the Sun night by night.
+     */
+    public static List<SkyWindow> windows(SkyModel sky, Site site, Target target, ObservingLimits limits,
+                                          LocalDate from, LocalDate to) {
+        if (target.solar() && !target.isMoving()) {
             List<SkyWindow> out = new ArrayList<>();
             for (LocalDate night = from; !night.isAfter(to); night = night.plusDays(1)) {
-                out.addAll(sky.windows(site, request.target(), limits, night));
+                out.addAll(sky.windows(site, target, limits, night));
             }
             return out;
         }
-        return sky.windows(List.of(site), List.of(request.target()), limits, from, to).get(0).get(0);
+        return sky.windows(List.of(site), List.of(target), limits, from, to).get(0).get(0);
     }
 
     /**
