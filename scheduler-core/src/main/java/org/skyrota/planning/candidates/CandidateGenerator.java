@@ -344,7 +344,7 @@ public final class CandidateGenerator {
         }
 
         private int noonMinute(Site site, LocalDate night) {
-            return registry.minuteOf(night.atTime(12, 0).atZone(site.nightZone()).toInstant());
+            return registry.minuteOf(Night.of(site.nightZone(), night).start());
         }
 
         private Visit buildVisit(String visitId, int k, long lowerMinute, LocalDate from, LocalDate to, int[] length,

@@ -66,9 +66,8 @@ public final class SyntheticSky implements SkyModel {
     private static Instant culmination(Site site, Target target, LocalDate night) {
         double localHour = (target.raDeg() / 15.0 + 12) % 24;
         long minutes = Math.round(localHour * 60) - 4 * (night.toEpochDay() % 365);
-        ZonedDateTime noon = ZonedDateTime.of(night, LocalTime.NOON, site.nightZone());
         long fromNoon = Math.floorMod(minutes - 12 * 60, 24 * 60);
-        return noon.plusMinutes(fromNoon).toInstant();
+        return Night.of(site.nightZone(), night).start().plus(Duration.ofMinutes(fromNoon));
     }
 
     private static Instant max(Instant a, Instant b) {

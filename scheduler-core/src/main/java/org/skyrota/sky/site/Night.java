@@ -73,8 +73,7 @@ public record Night(LocalDate date, Instant start, Instant end) {
         Objects.requireNonNull(zone, "zone");
         Objects.requireNonNull(instant, "instant");
         LocalDate date = LocalDate.ofInstant(instant, zone);
-        Night night = of(zone, date);
-        return instant.isBefore(night.start()) ? of(zone, date.minusDays(1)) : night;
+        return of(zone, instant.isBefore(localNoon(zone, date)) ? date.minusDays(1) : date);
     }
 
     /** The zone that defines a site's nights: its own, else local mean solar time ({@link #meanSolarOffset}). */

@@ -177,8 +177,7 @@ class ComputeController {
                 ? org.skyrota.planning.model.Target.moving(moving.label(), moving)
                 : org.skyrota.planning.model.Target.fixed("the target", target.raDeg(), target.decDeg());
         List<SkyWindow> windows = TelescopeWindows.windows(new EngineSkyModel(), site, planned, limits, first, last);
-        return new VisibilityResponse(windows.stream().map(w -> WindowResponse.of(
-                new SkyComputations.Window(w.night(), w.start(), w.end(), w.maxAltitudeDeg()))).toList());
+        return new VisibilityResponse(windows.stream().map(WindowResponse::of).toList());
     }
 
     /** The position of a plugin's target kind, from the {@code targetParameters.*} query parameters. */

@@ -92,10 +92,10 @@ class StoredSkyController {
             List<TelescopeWindowsView> telescopes = at.telescopes().stream()
                     .map(o -> new TelescopeWindowsView(Long.parseLong(o.telescope().id()),
                             network.telescopeNames().get(o.telescope().id()), o.canTake(), o.whyNot(),
-                            o.windows().stream().map(StoredSkyController::window).toList()))
+                            o.windows().stream().map(WindowResponse::of).toList()))
                     .toList();
             long siteId = Long.parseLong(site.id());
-            bySite.add(new SiteWindows(siteId, site.name(), at.windows().stream().map(StoredSkyController::window).toList(),
+            bySite.add(new SiteWindows(siteId, site.name(), at.windows().stream().map(WindowResponse::of).toList(),
                     telescopes));
             SkyWindow earliest = at.windows().stream().min(Comparator.comparing(SkyWindow::start)).orElse(null);
             if (earliest != null && (best == null || earliest.start().isBefore(best.start()))) {
@@ -104,10 +104,6 @@ class StoredSkyController {
             }
         }
         return new Observability(r.id(), first.toString(), last.toString(), bySite, next);
-    }
-
-    private static WindowResponse window(SkyWindow w) {
-        return WindowResponse.of(new SkyComputations.Window(w.night(), w.start(), w.end(), w.maxAltitudeDeg()));
     }
 
     @GetMapping("/api/sites/{id}/almanac")
