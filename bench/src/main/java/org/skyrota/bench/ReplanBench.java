@@ -13,6 +13,7 @@ import org.skyrota.planning.model.Telescope;
 import org.skyrota.planning.solver.PlanResult;
 import org.skyrota.planning.solver.Planner;
 import org.skyrota.planning.solver.SolveOptions;
+import org.skyrota.sky.site.Night;
 
 /**
  * replan: the planner-term plan, then one night at one site closed (weather) and a re-plan with a 3 s search limit.
@@ -50,7 +51,6 @@ public final class ReplanBench {
     }
 
     private static LocalDate nightOf(Site site, Assignment a) {
-        var local = a.start().atZone(site.nightZone());
-        return local.getHour() < 12 ? local.toLocalDate().minusDays(1) : local.toLocalDate();
+        return Night.containing(site.nightZone(), a.start()).date();
     }
 }

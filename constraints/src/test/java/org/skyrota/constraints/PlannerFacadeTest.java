@@ -31,6 +31,7 @@ import org.skyrota.planning.solver.PlannedVisit;
 import org.skyrota.planning.solver.Planner;
 import org.skyrota.planning.solver.Progress;
 import org.skyrota.planning.solver.SolveOptions;
+import org.skyrota.sky.site.Night;
 
 /** The solver facade end to end on small invented problems and the synthetic sky. */
 class PlannerFacadeTest {
@@ -291,7 +292,6 @@ class PlannerFacadeTest {
     }
 
     private static LocalDate nightOf(Instant start) {
-        var local = start.atZone(TestProblems.SITE.zone());
-        return local.getHour() < 12 ? local.toLocalDate().minusDays(1) : local.toLocalDate();
+        return Night.containing(TestProblems.SITE.nightZone(), start).date();
     }
 }

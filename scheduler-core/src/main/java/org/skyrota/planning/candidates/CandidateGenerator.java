@@ -3,7 +3,6 @@ package org.skyrota.planning.candidates;
 import java.time.Duration;
 import java.time.Instant;
 import java.time.LocalDate;
-import java.time.LocalDateTime;
 import java.time.ZoneOffset;
 import java.util.ArrayList;
 import java.util.Comparator;
@@ -34,6 +33,8 @@ import org.skyrota.planning.model.Telescope;
 import org.skyrota.planning.sky.SkyConditions;
 import org.skyrota.planning.sky.SkyModel;
 import org.skyrota.planning.sky.SkyWindow;
+import org.skyrota.planning.sky.TelescopeWindows;
+import org.skyrota.sky.site.Night;
 
 /**
  * Turns a {@link PlanningProblem} into a {@link Schedule}: for every visit, every telescope that can take it,
@@ -237,8 +238,7 @@ public final class CandidateGenerator {
 
         /** The night (date of the evening, local noon to local noon) an instant belongs to at a site. */
         static LocalDate nightOf(Site site, Instant instant) {
-            LocalDateTime local = LocalDateTime.ofInstant(instant, site.nightZone());
-            return local.getHour() < 12 ? local.toLocalDate().minusDays(1) : local.toLocalDate();
+            return Night.containing(site.nightZone(), instant).date();
         }
     }
 
@@ -408,7 +408,7 @@ public final class CandidateGenerator {
         }
 
         private int noonMinute(Site site, LocalDate night) {
-            return registry.minuteOf(night.atTime(12, 0).atZone(site.nightZone()).toInstant());
+            return registry.minuteOf(Night.of(site.nightZone(), night).start());
         }
 
         private Visit buildVisit(String visitId, int k, long lowerMinute, LocalDate from, LocalDate to, int[] length,
@@ -658,13 +658,11 @@ public final class CandidateGenerator {
             return false;
         }
 
+        /** The shared rule ({@link TelescopeWindows}), cached per site, minimum altitude and night. */
         private List<SkyWindow> windows(Site site, Telescope telescope, LocalDate night) {
-            ObservingLimits l = request.limits();
-            double minAlt = Math.max(l.minAltitudeDeg(), telescope.minAltitudeDeg());
-            ObservingLimits effective = new ObservingLimits(minAlt, l.maxAirmass(), l.darkness(),
-                    l.minMoonSeparationDeg(), l.maxMoonIllumination(), l.minSunSeparationDeg());
+            double minAlt = TelescopeWindows.limitsOn(request.limits(), telescope).minAltitudeDeg();
             return windowCache.computeIfAbsent(site.id() + "|" + minAlt + "|" + night,
-                    key -> sky.windows(site, request.target(), effective, night));
+                    key -> TelescopeWindows.windows(sky, site, telescope, request, night));
         }
 
         private SkyConditions conditionsAt(int siteIndex, Site site, int minute) {
@@ -673,13 +671,7 @@ public final class CandidateGenerator {
         }
 
         private Instrument bestInstrument(Telescope telescope) {
-            for (Instrument i : problem.instruments()) {
-                if (i.telescopeId().equals(telescope.id()) && i.filters().containsAll(request.filters())
-                        && (!request.target().solar() || i.certifiedSolarFilter())) {
-                    return i;
-                }
-            }
-            return null;
+            return TelescopeWindows.instrumentFor(request, telescope, problem.instruments()).orElse(null);
         }
 
         private Instrument anyInstrument(Telescope telescope) {

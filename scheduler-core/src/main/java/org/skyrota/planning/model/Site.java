@@ -4,6 +4,7 @@ import java.time.ZoneId;
 import java.util.Objects;
 
 import org.skyrota.sky.site.HorizonProfile;
+import org.skyrota.sky.site.Night;
 
 /**
  * An observing site as the planner sees it.
@@ -41,13 +42,13 @@ public record Site(String id, String name, double latitudeDeg, double longitudeD
         return new Site(id, name, latitudeDeg, longitudeDeg, elevationM, zone, newHorizon, darkSkyZenithVMag);
     }
 
-    /** The zone that defines this site's nights: its IANA zone, else local mean solar time rounded to the second. */
+    /**
+     * The zone that defines this site's nights: its IANA zone, else local mean solar time rounded to the second, the
+     * same zone the sky engine's {@link Night} uses. The night an instant belongs to is
+     * {@code Night.containing(site.nightZone(), instant)}.
+     */
     public ZoneId nightZone() {
-        if (zone != null) {
-            return zone;
-        }
-        int offsetSeconds = (int) Math.round(longitudeDeg / 15.0 * 3600.0);
-        return java.time.ZoneOffset.ofTotalSeconds(offsetSeconds);
+        return Night.zoneOf(zone, longitudeDeg);
     }
 
     @Override

@@ -11,6 +11,7 @@ import java.util.List;
 import org.skyrota.planning.model.ObservingLimits;
 import org.skyrota.planning.model.Site;
 import org.skyrota.planning.model.Target;
+import org.skyrota.sky.site.Night;
 
 /**
  * An invented, perfectly regular sky for tests and optimiser benchmarks: every night is dark from 20:00 to 05:00
@@ -45,7 +46,7 @@ public final class SyntheticSky implements SkyModel {
 
     @Override
     public SkyConditions conditions(Site site, Target target, Instant instant) {
-        LocalDate night = ZonedDateTime.ofInstant(instant.minus(Duration.ofHours(12)), site.nightZone()).toLocalDate();
+        LocalDate night = Night.containing(site.nightZone(), instant).date();
         double hourAngleH = Duration.between(culmination(site, target, night), instant).toSeconds() / 3600.0;
         double zenithDeg = Math.min(89, Math.abs(site.latitudeDeg() - target.decDeg()) + 12 * Math.abs(hourAngleH));
         double altitude = 90 - zenithDeg;
@@ -57,7 +58,7 @@ public final class SyntheticSky implements SkyModel {
     /** The hour angle of this made-up sky: zero at its culmination, 15° per hour. */
     @Override
     public double hourAngleDeg(Site site, Target target, Instant instant) {
-        LocalDate night = ZonedDateTime.ofInstant(instant.minus(Duration.ofHours(12)), site.nightZone()).toLocalDate();
+        LocalDate night = Night.containing(site.nightZone(), instant).date();
         double hours = Duration.between(culmination(site, target, night), instant).toSeconds() / 3600.0;
         return org.skyrota.sky.coords.HourAngle.normalizeDeg(15 * hours);
     }
@@ -65,9 +66,8 @@ public final class SyntheticSky implements SkyModel {
     private static Instant culmination(Site site, Target target, LocalDate night) {
         double localHour = (target.raDeg() / 15.0 + 12) % 24;
         long minutes = Math.round(localHour * 60) - 4 * (night.toEpochDay() % 365);
-        ZonedDateTime noon = ZonedDateTime.of(night, LocalTime.NOON, site.nightZone());
         long fromNoon = Math.floorMod(minutes - 12 * 60, 24 * 60);
-        return noon.plusMinutes(fromNoon).toInstant();
+        return Night.of(site.nightZone(), night).start().plus(Duration.ofMinutes(fromNoon));
     }
 
     private static Instant max(Instant a, Instant b) {

@@ -4,7 +4,6 @@ import static org.assertj.core.api.Assertions.assertThat;
 
 import java.time.Duration;
 import java.time.LocalDate;
-import java.time.ZoneId;
 import java.util.List;
 import java.util.Map;
 import java.util.Set;
@@ -26,6 +25,7 @@ import org.skyrota.planning.model.Site;
 import org.skyrota.planning.model.Target;
 import org.skyrota.planning.model.Telescope;
 import org.skyrota.planning.sky.SyntheticSky;
+import org.skyrota.sky.site.Night;
 
 /**
  * When a request's range, or the part of it inside the planning horizon, has room for fewer repeats than it asks,
@@ -131,9 +131,8 @@ class RepeatRangeTest {
 
     /** The nights of a visit's candidates, counted from the first night of the range. */
     private static List<Long> nights(PreparedProblem prepared, Visit v) {
-        ZoneId zone = ZoneId.of("America/Denver");
         return v.getCandidates().stream()
-                .map(p -> prepared.schedule().instantOf(p.startMinute()).atZone(zone).minusHours(12).toLocalDate())
+                .map(p -> Night.containing(SITE.nightZone(), prepared.schedule().instantOf(p.startMinute())).date())
                 .map(d -> d.toEpochDay() - NIGHT.toEpochDay()).distinct().sorted().toList();
     }
 

@@ -17,6 +17,8 @@ import org.skyrota.web.report.FeedTokenRepository;
 import org.skyrota.web.report.TokenAuthenticationFilter;
 import org.springframework.security.web.SecurityFilterChain;
 import org.springframework.security.web.authentication.www.BasicAuthenticationFilter;
+import org.springframework.security.web.servlet.util.matcher.PathPatternRequestMatcher;
+import org.springframework.security.web.util.matcher.AndRequestMatcher;
 import org.springframework.security.web.csrf.CookieCsrfTokenRepository;
 import org.springframework.security.web.csrf.CsrfTokenRequestAttributeHandler;
 
@@ -24,7 +26,7 @@ import org.springframework.security.web.csrf.CsrfTokenRequestAttributeHandler;
  * Who may do what. Scripts send HTTP Basic on every call (no session, no CSRF token needed:
  * a forged cross-site request cannot carry the header); browsers sign in with a form, keep a
  * session, and send the CSRF token from the {@code XSRF-TOKEN} cookie in {@code X-XSRF-TOKEN}.
- * The compute endpoints, health and the API description are open; everything else under /api
+ * The compute endpoints (but visibility at a stored site), health and the API description are open; everything else under /api
  * needs an account, and changes to sites, equipment, programs and accounts need a coordinator
  * or an admin. Which requests a requester sees is decided in the request service.
  */
@@ -54,6 +56,10 @@ class SecurityConfig {
         CsrfTokenRequestAttributeHandler plainToken = new CsrfTokenRequestAttributeHandler();
         http
                 .authorizeHttpRequests(auth -> auth
+                        // Visibility at a stored site reads the site and its telescopes: only for those signed in.
+                        .requestMatchers(new AndRequestMatcher(
+                                PathPatternRequestMatcher.pathPattern(HttpMethod.GET, "/api/visibility"),
+                                request -> request.getParameter("siteId") != null)).authenticated()
                         .requestMatchers(HttpMethod.GET, "/api/almanac", "/api/visibility", "/api/about").permitAll()
                         .requestMatchers("/actuator/health", "/actuator/health/**", "/actuator/info").permitAll()
                         .requestMatchers("/v3/api-docs", "/v3/api-docs/**", "/swagger-ui/**", "/swagger-ui.html").permitAll()

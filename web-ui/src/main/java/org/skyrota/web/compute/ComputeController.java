@@ -6,11 +6,17 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 
+import org.skyrota.planning.model.DarknessLimit;
+import org.skyrota.planning.model.ObservingLimits;
+import org.skyrota.planning.sky.EngineSkyModel;
+import org.skyrota.planning.sky.SkyWindow;
+import org.skyrota.planning.sky.TelescopeWindows;
 import org.skyrota.plugin.MovingTarget;
 import org.skyrota.web.compute.SkyComputations.Conditions;
 import org.skyrota.web.compute.SkyComputations.Darkness;
 import org.skyrota.web.compute.SkyComputations.Observer;
 import org.skyrota.web.compute.SkyComputations.Target;
+import org.skyrota.web.plan.StoredSky;
 import org.skyrota.web.plugin.TargetKinds;
 import org.skyrota.web.system.FieldProblem;
 import org.skyrota.web.system.InvalidParametersException;
@@ -23,7 +29,8 @@ import org.springframework.web.bind.annotation.RestController;
 
 /**
  * The compute endpoints: almanac and visibility windows for a site given by its coordinates.
- * They read no stored data, so they need no login.
+ * They read no stored data, so they need no login. Visibility at a stored site ({@code siteId})
+ * reads the site and its telescopes, so that call needs a sign-in (SecurityConfig).
  */
 @RestController
 class ComputeController {
@@ -42,12 +49,17 @@ class ComputeController {
     /** Query parameters with this prefix are a moving target's parameters: {@code targetParameters.body=jupiter}. */
     static final String PARAMETER_PREFIX = TargetKinds.PARAMETERS_FIELD + ".";
 
+    /** The query parameter naming a stored site. */
+    static final String SITE_ID = "siteId";
+
     private final SkyComputations sky;
     private final ObjectProvider<TargetKinds> targetKinds;
+    private final StoredSky storedSky;
 
-    ComputeController(SkyComputations sky, ObjectProvider<TargetKinds> targetKinds) {
+    ComputeController(SkyComputations sky, ObjectProvider<TargetKinds> targetKinds, StoredSky storedSky) {
         this.sky = sky;
         this.targetKinds = targetKinds;
+        this.storedSky = storedSky;
     }
 
     @GetMapping(path = "/api/almanac", produces = MediaType.APPLICATION_JSON_VALUE)
@@ -79,12 +91,19 @@ class ComputeController {
             @RequestParam(required = false) String maxMoonIllumination,
             @RequestParam(required = false) String tz,
             @RequestParam(required = false) String targetKind,
+            @RequestParam(name = SITE_ID, required = false) String siteId,
             @RequestParam Map<String, String> query) {
         QueryParameters params = new QueryParameters();
         boolean fixed = TargetKinds.isFixed(targetKind);
         double raDeg = fixed ? params.requiredNumber("ra", ra, 0, 360) : 0;
         double decDeg = fixed ? params.requiredNumber("dec", dec, -90, 90) : 0;
-        Observer observer = observer(params, lat, lon, elevation, tz);
+        Map<String, String> coordinates = new LinkedHashMap<>();
+        coordinates.put("lat", lat);
+        coordinates.put("lon", lon);
+        coordinates.put("elevation", elevation);
+        coordinates.put("tz", tz);
+        StoredSky.Network stored = siteId == null ? null : storedSite(params, siteId, coordinates);
+        Observer observer = siteId == null ? observer(params, lat, lon, elevation, tz) : null;
         LocalDate first = params.requiredDate("from", from, EARLIEST_DATE, LATEST_DATE);
         LocalDate last = params.requiredDate("to", to, EARLIEST_DATE, LATEST_DATE);
         Conditions conditions = new Conditions(
@@ -101,10 +120,64 @@ class ComputeController {
             }
         }
         params.throwIfInvalid();
+        if (stored != null) {
+            Target target = new Target(raDeg % 360, decDeg);
+            return atStoredSite(stored, fixed ? null : moving(targetKind, query), target, conditions, first, last);
+        }
         if (!fixed) {
             return VisibilityResponse.of(sky.movingWindows(observer, moving(targetKind, query), conditions, first, last));
         }
         return VisibilityResponse.of(sky.windows(observer, new Target(raDeg % 360, decDeg), conditions, first, last));
+    }
+
+    /**
+     * The stored site a visibility query names, with its active telescopes; null (and the problems noted) when
+     * {@code siteId} is not a stored site's id or coordinates are given as well.
+     */
+    private StoredSky.Network storedSite(QueryParameters params, String siteId, Map<String, String> coordinates) {
+        coordinates.forEach((name, value) -> {
+            if (value != null && !value.isBlank()) {
+                params.reject(name, "must not be given with " + SITE_ID + ": the stored site's own is used, was '"
+                        + value + "'");
+            }
+        });
+        long id;
+        try {
+            id = Long.parseLong(siteId.trim());
+        } catch (NumberFormatException e) {
+            params.reject(SITE_ID, "must be the id of a stored site, a whole number, was '" + siteId + "'");
+            return null;
+        }
+        StoredSky.Network network = storedSky.site(id);
+        if (network == null) {
+            params.reject(SITE_ID, "names no stored site: " + id);
+        }
+        return network;
+    }
+
+    /**
+     * The windows at a stored site, by the planner's sky model and the rule its candidates follow
+     * ({@link TelescopeWindows}): under the site's horizon profile, with the minimum altitude raised to the lowest
+     * pointing limit of the site's active telescopes where that is higher.
+     *
+     * @param moving the moving target's position, or null for the fixed {@code target}
+     */
+    private static VisibilityResponse atStoredSite(StoredSky.Network stored, MovingTarget moving, Target target,
+                                                   Conditions conditions, LocalDate first, LocalDate last) {
+        org.skyrota.planning.model.Site site = stored.sites().get(0);
+        double lowest = stored.lowestPointingLimitDeg(site);
+        double minAltitude = Double.isNaN(lowest) ? conditions.minAltitudeDeg()
+                : Math.max(conditions.minAltitudeDeg(), lowest);
+        // No Sun-separation limit: the same conditions as a query by coordinates.
+        ObservingLimits limits = new ObservingLimits(minAltitude, Double.POSITIVE_INFINITY,
+                DarknessLimit.valueOf(conditions.darkness().name()),
+                conditions.minMoonSeparationDeg() == null ? 0 : conditions.minMoonSeparationDeg(),
+                conditions.maxMoonIllumination() == null ? 1 : conditions.maxMoonIllumination(), 0);
+        org.skyrota.planning.model.Target planned = moving != null
+                ? org.skyrota.planning.model.Target.moving(moving.label(), moving)
+                : org.skyrota.planning.model.Target.fixed("the target", target.raDeg(), target.decDeg());
+        List<SkyWindow> windows = TelescopeWindows.windows(new EngineSkyModel(), site, planned, limits, first, last);
+        return new VisibilityResponse(windows.stream().map(WindowResponse::of).toList());
     }
 
     /** The position of a plugin's target kind, from the {@code targetParameters.*} query parameters. */

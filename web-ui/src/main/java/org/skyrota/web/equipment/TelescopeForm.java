@@ -17,7 +17,7 @@ record TelescopeForm(
         @NotNull Long siteId,
         @NotBlank @Size(max = 100) String name,
         @NotNull @DecimalMin(value = "0", inclusive = false) @DecimalMax("20000") Double apertureMm,
-        @NotNull @DecimalMin("-5") @DecimalMax("90") Double minAltitudeDeg,
+        @NotNull @DecimalMin("-5") @DecimalMax("89") Double minAltitudeDeg,
         @NotNull @DecimalMin(value = "0", inclusive = false) @DecimalMax("90") Double slewRateDegPerS,
         @NotNull @DecimalMin("0") @DecimalMax("3600") Double settleSeconds,
         Boolean active,

@@ -121,7 +121,7 @@ public final class PlanningMapper {
 
     /** The site-local date of the evening a visit starting at {@code start} belongs to (nights run noon to noon). */
     public static LocalDate nightOf(Instant start, ZoneId zone) {
-        return start.atZone(zone).minusHours(12).toLocalDate();
+        return org.skyrota.sky.site.Night.containing(zone, start).date();
     }
 
     /** When the night of {@code night} ends at a stored site: local noon of the next day. */

@@ -1,6 +1,5 @@
 package org.skyrota.web.plugin;
 
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
@@ -45,10 +44,16 @@ class PluginsConfig {
     /**
      * The bundled plugins read their settings from system properties when the service loader makes them; these are
      * the server's settings of the same names (command line, environment, application properties), copied over
-     * first. The conditions file defaults to {@code <data-dir>/conditions.csv} when that file exists.
+     * first. Without {@code skyrota.conditions.file} the conditions file is {@code <data-dir>/conditions.csv}, read at
+     * every planner run whenever it exists, so that one written or changed while the server runs takes effect at the
+     * next run (the feed is made once, at the start, when the file may not exist yet).
      */
     static final List<String> PLUGIN_SETTINGS = List.of("skyrota.conditions.file", "skyrota.voevent.program",
             "skyrota.voevent.allow-test");
+    /** The conditions file named outright: it must exist whenever a run reads it. */
+    static final String CONDITIONS_FILE = "skyrota.conditions.file";
+    /** The conditions-file plugin's default place, read whenever the file exists (its DEFAULT_PATH_PROPERTY). */
+    static final String CONDITIONS_DEFAULT_FILE = "skyrota.conditions.default-file";
 
     @Bean
     PluginRegistry pluginRegistry(PluginJars jars, Environment environment) {
@@ -58,9 +63,10 @@ class PluginsConfig {
                 System.setProperty(name, value);
             }
         }
-        Path conditions = Path.of(environment.getProperty("skyrota.data-dir", "./skyrota-data"), "conditions.csv");
-        if (environment.getProperty("skyrota.conditions.file") == null && Files.isRegularFile(conditions)) {
-            System.setProperty("skyrota.conditions.file", conditions.toString());
+        String configured = environment.getProperty(CONDITIONS_FILE);
+        if (configured == null || configured.isBlank()) {
+            Path conditions = Path.of(environment.getProperty("skyrota.data-dir", "./skyrota-data"), "conditions.csv");
+            System.setProperty(CONDITIONS_DEFAULT_FILE, conditions.toAbsolutePath().toString());
         }
         PluginRegistry registry;
         try {

@@ -29,6 +29,7 @@ import org.skyrota.web.compute.SkyComputations.NightEvents;
 import org.skyrota.web.compute.SkyComputations.Observer;
 import org.skyrota.web.compute.SkyComputations.Target;
 import org.skyrota.web.compute.SkyComputations.Window;
+import org.skyrota.web.plan.StoredSky;
 import org.skyrota.web.system.ProblemAdvice;
 import org.springframework.beans.factory.annotation.Autowired;
 import org.springframework.boot.webmvc.test.autoconfigure.AutoConfigureMockMvc;
@@ -57,6 +58,10 @@ class ComputeControllerParametersTest {
 
     @MockitoBean
     SkyComputations sky;
+
+    /** Stored sites are read only for {@code siteId}; see {@link OneSkyTest} for the real answers. */
+    @MockitoBean
+    StoredSky storedSky;
 
     @Test
     void almanacPassesTheSiteAndNightAndWritesEveryKeyInContractOrder() throws Exception {
@@ -212,6 +217,16 @@ class ComputeControllerParametersTest {
         expectProblem("/api/visibility?" + TARGET + "&" + SITE + "&from=2027-01-01&to=2028-01-02", "to", "may be at most 366 nights");
         when(sky.windows(any(), any(), any(), any(), any())).thenReturn(List.of());
         mvc.perform(get("/api/visibility?" + TARGET + "&" + SITE + "&from=2027-01-01&to=2028-01-01")).andExpect(status().isOk());
+    }
+
+    @Test
+    void aStoredSiteIsNamedByItsIdAloneAndMustExist() throws Exception {
+        String range = "&from=2027-01-10&to=2027-01-12";
+        expectProblem("/api/visibility?" + TARGET + range + "&siteId=hill", "siteId", "must be the id of a stored site");
+        expectProblem("/api/visibility?" + TARGET + range + "&siteId=12", "siteId", "names no stored site: 12");
+        expectProblem("/api/visibility?" + TARGET + range + "&siteId=12&lat=37.2", "lat", "must not be given with siteId");
+        expectProblem("/api/visibility?" + TARGET + range + "&siteId=12&tz=Europe/Madrid", "tz", "must not be given with siteId");
+        verify(storedSky, org.mockito.Mockito.times(3)).site(12);
     }
 
     @Test

@@ -143,6 +143,8 @@ class RoleEndpointMatrixTest {
                 new Row("GET", "/api/almanac", "/api/almanac?lat=45&lon=7&date=2027-01-10", null, OPEN, "valid query"),
                 new Row("GET", "/api/visibility", "/api/visibility?ra=83.6&dec=22&lat=45&lon=7&from=2027-01-10&to=2027-01-11",
                         null, OPEN, "valid query"),
+                new Row("GET", "/api/visibility", "/api/visibility?ra=83.6&dec=22&siteId=" + site + "&from=2027-01-10&to=2027-01-11",
+                        null, SIGNED_IN_READ, "at a stored site: it reads the site and its telescopes, so only for those signed in"),
                 new Row("GET", "/api/about", "/api/about", null, OPEN, ""),
                 new Row("GET", "/v3/api-docs", "/v3/api-docs", null, OPEN, "OpenAPI 3 document"),
                 new Row("GET", "/v3/api-docs.yaml", "/v3/api-docs.yaml", null, OPEN, "OpenAPI 3 document as YAML"),

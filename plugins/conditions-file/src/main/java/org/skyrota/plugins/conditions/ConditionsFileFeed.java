@@ -42,11 +42,18 @@ import org.skyrota.plugin.SiteCondition;
  * bad line yields nothing and a {@link ConditionsFileException} listing every bad line.
  *
  * <p>Loaded by {@link java.util.ServiceLoader}, the feed reads the file named by the system
- * property {@value #PATH_PROPERTY}; with the property unset it knows no conditions.
+ * property {@value #PATH_PROPERTY}, which must exist when it is read (a missing one is an error the
+ * server reports with the run). Without it, the feed reads the file named by
+ * {@value #DEFAULT_PATH_PROPERTY} whenever that file exists (the server's default place,
+ * {@code <data-dir>/conditions.csv}): a file created or changed while the server runs takes effect
+ * at the next run, and no file means no conditions. With neither property set it knows no
+ * conditions.
  */
 public final class ConditionsFileFeed implements ConditionsFeed {
 
     public static final String PATH_PROPERTY = "skyrota.conditions.file";
+    /** The file read when it exists, if {@value #PATH_PROPERTY} is unset; set by the server to its default place. */
+    public static final String DEFAULT_PATH_PROPERTY = "skyrota.conditions.default-file";
     static final PluginDescriptor DESCRIPTOR =
             new PluginDescriptor("conditions-file", "Conditions from a file", "1.0", PluginApi.VERSION);
 
@@ -56,15 +63,42 @@ public final class ConditionsFileFeed implements ConditionsFeed {
             .setIgnoreEmptyLines(true).setIgnoreSurroundingSpaces(true).setCommentMarker('#').get();
 
     private final Path file;
+    /** Whether a missing file means no conditions rather than an error. */
+    private final boolean optional;
 
-    /** Reads the file named by the system property {@value #PATH_PROPERTY}, if set. */
+    /**
+     * Reads the file named by the system property {@value #PATH_PROPERTY} if set, else the one named by
+     * {@value #DEFAULT_PATH_PROPERTY} whenever it exists.
+     */
     public ConditionsFileFeed() {
         String configured = System.getProperty(PATH_PROPERTY);
-        this.file = configured == null || configured.isBlank() ? null : Path.of(configured);
+        String fallback = System.getProperty(DEFAULT_PATH_PROPERTY);
+        if (configured != null && !configured.isBlank()) {
+            this.file = Path.of(configured);
+            this.optional = false;
+        } else if (fallback != null && !fallback.isBlank()) {
+            this.file = Path.of(fallback);
+            this.optional = true;
+        } else {
+            this.file = null;
+            this.optional = false;
+        }
     }
 
+    /** Reads {@code file}, which must exist whenever conditions are asked for. */
     public ConditionsFileFeed(Path file) {
+        this(file, false);
+    }
+
+    /**
+     * Reads {@code file} afresh at every call.
+     *
+     * @param optional true when a missing file means no conditions (it may be created later), false when it is an
+     *                 error
+     */
+    public ConditionsFileFeed(Path file, boolean optional) {
         this.file = file;
+        this.optional = optional;
     }
 
     @Override
@@ -74,9 +108,11 @@ public final class ConditionsFileFeed implements ConditionsFeed {
 
     @Override
     public String description() {
-        return file == null
-                ? "Closes nights listed in a conditions file; no file is configured (system property " + PATH_PROPERTY + ")."
-                : "Closes nights and records cloud cover listed in " + file + ".";
+        if (file == null) {
+            return "Closes nights listed in a conditions file; no file is configured (system property " + PATH_PROPERTY + ").";
+        }
+        return "Closes nights and records cloud cover listed in " + file
+                + (optional ? ", read at every planning run whenever the file exists." : ".");
     }
 
     /** The file read, if one is configured. */
@@ -86,7 +122,7 @@ public final class ConditionsFileFeed implements ConditionsFeed {
 
     @Override
     public List<SiteCondition> conditions(LocalDate from, LocalDate to) throws IOException, ConditionsFileException {
-        if (file == null) {
+        if (file == null || optional && !Files.exists(file)) {
             return List.of();
         }
         List<SiteCondition> all = readAll();

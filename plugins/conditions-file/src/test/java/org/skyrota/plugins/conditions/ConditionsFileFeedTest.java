@@ -112,4 +112,43 @@ class ConditionsFileFeedTest {
             }
         }
     }
+
+    @Test
+    void theDefaultPlaceIsReadWheneverTheFileExistsAndAFileNamedOutrightMustExist() throws Exception {
+        Path later = dir.resolve("conditions.csv");
+        String oldPath = System.getProperty(ConditionsFileFeed.PATH_PROPERTY);
+        String oldDefault = System.getProperty(ConditionsFileFeed.DEFAULT_PATH_PROPERTY);
+        System.clearProperty(ConditionsFileFeed.PATH_PROPERTY);
+        System.setProperty(ConditionsFileFeed.DEFAULT_PATH_PROPERTY, later.toString());
+        try {
+            // Made before the file exists, as the server makes it at its start.
+            ConditionsFileFeed feed = new ConditionsFileFeed();
+            assertThat(feed.file()).contains(later);
+            assertThat(feed.conditions(MAR_1, MAR_1)).isEmpty();
+            // Written afterwards: the next read finds it, and a change after that too.
+            file("site,night,closed,cloud_fraction,reason\nRidge Site,2027-03-01,no,0.95,forecast overcast\n");
+            assertThat(feed.conditions(MAR_1, MAR_1)).extracting(SiteCondition::cloudFraction).containsExactly(0.95);
+            file("site,night,closed,cloud_fraction,reason\nRidge Site,2027-03-01,no,0.5,forecast half cloudy\n");
+            assertThat(feed.conditions(MAR_1, MAR_1)).extracting(SiteCondition::cloudFraction).containsExactly(0.5);
+            Files.delete(later);
+            assertThat(feed.conditions(MAR_1, MAR_1)).isEmpty();
+
+            // A file named outright wins over the default place, and its absence is an error.
+            System.setProperty(ConditionsFileFeed.PATH_PROPERTY, dir.resolve("named.csv").toString());
+            ConditionsFileFeed named = new ConditionsFileFeed();
+            assertThat(named.file()).contains(dir.resolve("named.csv"));
+            assertThatThrownBy(() -> named.conditions(MAR_1, MAR_1)).isInstanceOf(NoSuchFileException.class);
+        } finally {
+            restore(ConditionsFileFeed.PATH_PROPERTY, oldPath);
+            restore(ConditionsFileFeed.DEFAULT_PATH_PROPERTY, oldDefault);
+        }
+    }
+
+    private static void restore(String property, String value) {
+        if (value == null) {
+            System.clearProperty(property);
+        } else {
+            System.setProperty(property, value);
+        }
+    }
 }
