@@ -19,6 +19,7 @@ import java.util.Map;
  * @param darkness         {@code "astronomical"}, {@code "nautical"} or {@code "civil"}; null for the default
  * @param maxMoonIllumination highest Moon illuminated fraction while the Moon is up, 0 to 1; null for none
  * @param minMoonSeparationDeg smallest angle from the Moon, degrees; null for none
+ * @param maxAirmass       highest Kasten–Young airmass, at least 1; null for none
  * @param earliestNight    first night the request may be observed; null for no limit
  * @param latestNight      last night; null for no limit
  * @param repeats          how many visits, at least 1
@@ -40,6 +41,7 @@ public record RequestRecord(
         String darkness,
         Double maxMoonIllumination,
         Double minMoonSeparationDeg,
+        Double maxAirmass,
         LocalDate earliestNight,
         LocalDate latestNight,
         int repeats,
@@ -53,5 +55,19 @@ public record RequestRecord(
         targetParameters = targetParameters == null ? Map.of() : Map.copyOf(targetParameters);
         exposures = exposures == null ? List.of() : List.copyOf(exposures);
         notes = notes == null ? "" : notes;
+    }
+
+    /**
+     * A request without an airmass limit: the members as they were before {@code maxAirmass}, so that importers built
+     * against them keep working unchanged.
+     */
+    public RequestRecord(String title, String targetName, String targetKind, Double raDeg, Double decDeg,
+                         Map<String, String> targetParameters, List<ExposureRecord> exposures, Double minAltitudeDeg,
+                         String darkness, Double maxMoonIllumination, Double minMoonSeparationDeg, LocalDate earliestNight,
+                         LocalDate latestNight, int repeats, int intervalDays, int priority, String program, String owner,
+                         String notes) {
+        this(title, targetName, targetKind, raDeg, decDeg, targetParameters, exposures, minAltitudeDeg, darkness,
+                maxMoonIllumination, minMoonSeparationDeg, null, earliestNight, latestNight, repeats, intervalDays, priority,
+                program, owner, notes);
     }
 }

@@ -67,7 +67,7 @@ class StoredSkyController {
             throw new InvalidParametersException(List.of(new FieldProblem("to", "at most " + MAX_NIGHTS + " nights")));
         }
         Conditions conditions = new Conditions(r.getMinAltitudeDeg(), Darkness.valueOf(r.getDarkness().name()),
-                r.getMinMoonSeparationDeg(), r.getMaxMoonIllumination());
+                r.getMinMoonSeparationDeg(), r.getMaxMoonIllumination(), r.getMaxAirmass());
         // A moving target's place is resolved once, with the plugins of this server.
         MovingTarget moving = TargetKinds.isFixed(r.getTargetKind()) ? null
                 : targetKinds.resolve(r.getTargetKind(), r.getTargetParameters());

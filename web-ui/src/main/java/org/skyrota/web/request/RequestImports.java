@@ -2,6 +2,7 @@ package org.skyrota.web.request;
 
 import java.io.IOException;
 import java.io.InputStream;
+import java.math.BigDecimal;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
@@ -114,9 +115,10 @@ public class RequestImports {
             }
         }
         RequestForm form = new RequestForm(null, programId == null ? -1L : programId, r.owner(), r.targetName(),
-                r.raDeg() == null ? null : Double.toString(r.raDeg()), r.decDeg() == null ? null : Double.toString(r.decDeg()),
+                plain(r.raDeg()), plain(r.decDeg()),
+                null, null,
                 r.exposures().stream().map(e -> new RequestForm.ExposureForm(e.filter(), e.seconds(), e.count())).toList(),
-                r.minAltitudeDeg(), darkness, r.minMoonSeparationDeg(), r.maxMoonIllumination(), r.earliestNight(),
+                r.minAltitudeDeg(), darkness, r.minMoonSeparationDeg(), r.maxMoonIllumination(), r.maxAirmass(), r.earliestNight(),
                 r.latestNight(), r.repeats(), r.intervalDays() > 0 ? r.intervalDays() * 24.0 : null, null, r.priority(),
                 r.targetKind(), r.targetParameters());
         for (ConstraintViolation<RequestForm> v : validator.validate(form)) {
@@ -126,6 +128,11 @@ public class RequestImports {
             throw new InvalidParametersException(problems);
         }
         return form;
+    }
+
+    /** Decimal degrees as the form's text, without an exponent ({@code 1.0E-5} is not a coordinate as typed). */
+    private static String plain(Double degrees) {
+        return degrees == null ? null : new BigDecimal(Double.toString(degrees)).toPlainString();
     }
 
     private static Optional<Program> program(String codeOrTitle, List<Program> stored) {
