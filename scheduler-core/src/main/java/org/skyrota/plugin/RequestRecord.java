@@ -19,6 +19,7 @@ import java.util.Map;
  * @param darkness         {@code "astronomical"}, {@code "nautical"} or {@code "civil"}; null for the default
  * @param maxMoonIllumination highest Moon illuminated fraction while the Moon is up, 0 to 1; null for none
  * @param minMoonSeparationDeg smallest angle from the Moon, degrees; null for none
+ * @param maxAirmass       highest Kasten–Young airmass, at least 1; null for none
  * @param earliestNight    first night the request may be observed; null for no limit
  * @param latestNight      last night; null for no limit
  * @param repeats          how many visits, at least 1
@@ -43,6 +44,7 @@ public record RequestRecord(
         String darkness,
         Double maxMoonIllumination,
         Double minMoonSeparationDeg,
+        Double maxAirmass,
         LocalDate earliestNight,
         LocalDate latestNight,
         int repeats,
@@ -63,10 +65,35 @@ public record RequestRecord(
     /** A record whose source names it by nothing that stays the same when sent again (a row of a file). */
     public RequestRecord(String title, String targetName, String targetKind, Double raDeg, Double decDeg,
             Map<String, String> targetParameters, List<ExposureRecord> exposures, Double minAltitudeDeg, String darkness,
-            Double maxMoonIllumination, Double minMoonSeparationDeg, LocalDate earliestNight, LocalDate latestNight,
-            int repeats, int intervalDays, int priority, String program, String owner, String notes) {
+            Double maxMoonIllumination, Double minMoonSeparationDeg, Double maxAirmass, LocalDate earliestNight,
+            LocalDate latestNight, int repeats, int intervalDays, int priority, String program, String owner,
+            String notes) {
         this(title, targetName, targetKind, raDeg, decDeg, targetParameters, exposures, minAltitudeDeg, darkness,
-                maxMoonIllumination, minMoonSeparationDeg, earliestNight, latestNight, repeats, intervalDays, priority,
+                maxMoonIllumination, minMoonSeparationDeg, maxAirmass, earliestNight, latestNight, repeats, intervalDays,
+                priority, program, owner, notes, null);
+    }
+
+    /** A request without an airmass limit, named at its source by {@code sourceId}. */
+    public RequestRecord(String title, String targetName, String targetKind, Double raDeg, Double decDeg,
+            Map<String, String> targetParameters, List<ExposureRecord> exposures, Double minAltitudeDeg, String darkness,
+            Double maxMoonIllumination, Double minMoonSeparationDeg, LocalDate earliestNight, LocalDate latestNight,
+            int repeats, int intervalDays, int priority, String program, String owner, String notes, String sourceId) {
+        this(title, targetName, targetKind, raDeg, decDeg, targetParameters, exposures, minAltitudeDeg, darkness,
+                maxMoonIllumination, minMoonSeparationDeg, null, earliestNight, latestNight, repeats, intervalDays,
+                priority, program, owner, notes, sourceId);
+    }
+
+    /**
+     * A request without an airmass limit or a source id: the members as they were before those, so that importers
+     * built against them keep working unchanged.
+     */
+    public RequestRecord(String title, String targetName, String targetKind, Double raDeg, Double decDeg,
+                         Map<String, String> targetParameters, List<ExposureRecord> exposures, Double minAltitudeDeg,
+                         String darkness, Double maxMoonIllumination, Double minMoonSeparationDeg, LocalDate earliestNight,
+                         LocalDate latestNight, int repeats, int intervalDays, int priority, String program, String owner,
+                         String notes) {
+        this(title, targetName, targetKind, raDeg, decDeg, targetParameters, exposures, minAltitudeDeg, darkness,
+                maxMoonIllumination, minMoonSeparationDeg, null, earliestNight, latestNight, repeats, intervalDays, priority,
                 program, owner, notes, null);
     }
 }

@@ -37,6 +37,12 @@ public record ObservingLimits(double minAltitudeDeg, double maxAirmass, Darkness
                 minSunSeparationDeg);
     }
 
+    /** The same limits with the highest airmass {@code airmass} (at least 1; infinity for none). */
+    public ObservingLimits withMaxAirmass(double airmass) {
+        return new ObservingLimits(minAltitudeDeg, airmass, darkness, minMoonSeparationDeg, maxMoonIllumination,
+                minSunSeparationDeg);
+    }
+
     public ObservingLimits withDarkness(DarknessLimit limit) {
         return new ObservingLimits(minAltitudeDeg, maxAirmass, limit, minMoonSeparationDeg, maxMoonIllumination,
                 minSunSeparationDeg);
@@ -46,6 +52,9 @@ public record ObservingLimits(double minAltitudeDeg, double maxAirmass, Darkness
     public String words() {
         StringBuilder b = new StringBuilder(darkness.words()).append(" and above ")
                 .append(Math.round(minAltitudeDeg)).append('°');
+        if (Double.isFinite(maxAirmass)) {
+            b.append(", airmass at most ").append(Math.round(maxAirmass * 100) / 100.0);
+        }
         if (minMoonSeparationDeg > 0) {
             b.append(", at least ").append(Math.round(minMoonSeparationDeg)).append("° from the Moon");
         }

@@ -69,11 +69,16 @@ class AccountController {
         }
     }
 
-    /** What an admin may change; absent members stay as they are. */
-    record AccountChange(Role role, Boolean enabled, String password) {
+    /**
+     * What an admin may change; absent members stay as they are. {@code username}, as an account read back carries it,
+     * is taken when it names the account of the path (so that what a GET answers can be sent back); an account is
+     * never renamed.
+     */
+    record AccountChange(String username, Role role, Boolean enabled, String password) {
         @Override
         public String toString() {
-            return "AccountChange[role=" + role + ", enabled=" + enabled + ", password=" + (password == null ? "unchanged" : "(hidden)") + "]";
+            return "AccountChange[username=" + username + ", role=" + role + ", enabled=" + enabled + ", password="
+                    + (password == null ? "unchanged" : "(hidden)") + "]";
         }
     }
 
@@ -140,7 +145,11 @@ class AccountController {
     @PutMapping("/{username}")
     @Transactional
     AccountView change(@PathVariable String username, @RequestBody AccountChange change) {
-        check(change, newPassword("password", change.password(), false));
+        List<FieldProblem> problems = new ArrayList<>(newPassword("password", change.password(), false));
+        if (change.username() != null && !change.username().equals(username)) {
+            problems.add(0, new FieldProblem("username", "an account cannot be renamed: this is " + username));
+        }
+        check(change, problems);
         Account a = accounts.findByUsername(username).orElseThrow(() -> new NotFoundException("account", username));
         AccountView before = AccountView.of(a);
         boolean losesAdmin = a.getRole() == Role.ADMIN && a.isEnabled()

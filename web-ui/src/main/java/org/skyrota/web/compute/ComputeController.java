@@ -21,6 +21,7 @@ import org.skyrota.web.plugin.TargetKinds;
 import org.skyrota.web.system.FieldProblem;
 import org.skyrota.web.system.InvalidParametersException;
 import org.skyrota.web.system.QueryParameters;
+import org.skyrota.web.system.SupportedDates;
 import org.springframework.beans.factory.ObjectProvider;
 import org.springframework.http.MediaType;
 import org.springframework.web.bind.annotation.GetMapping;
@@ -37,14 +38,17 @@ class ComputeController {
 
     /** Nights a single visibility request may span: one year, leap years included. */
     static final int MAX_NIGHTS = 366;
-    /** Dates the server accepts; outside them the UT1 extrapolation is little better than a guess. */
-    static final LocalDate EARLIEST_DATE = LocalDate.of(1800, 1, 1);
-    static final LocalDate LATEST_DATE = LocalDate.of(2200, 12, 31);
+    /** Dates the server accepts, here as in every body and query parameter ({@link SupportedDates}). */
+    static final LocalDate EARLIEST_DATE = SupportedDates.FIRST;
+    static final LocalDate LATEST_DATE = SupportedDates.LAST;
     static final double DEFAULT_MIN_ALTITUDE_DEG = 30;
     /** The sky engine's range for a minimum altitude (ObservingConstraints): below -1° refraction is unreliable. */
     static final double LOWEST_MIN_ALTITUDE_DEG = -1;
     static final double HIGHEST_MIN_ALTITUDE_DEG = 89;
     static final Darkness DEFAULT_DARKNESS = Darkness.ASTRONOMICAL;
+    /** An airmass limit's range, as a request's: 1 is the zenith; 10 (about 5.2° up, Kasten–Young) is our choice. */
+    static final double LOWEST_MAX_AIRMASS = 1;
+    static final double HIGHEST_MAX_AIRMASS = 10;
 
     /** Query parameters with this prefix are a moving target's parameters: {@code targetParameters.body=jupiter}. */
     static final String PARAMETER_PREFIX = TargetKinds.PARAMETERS_FIELD + ".";
@@ -89,6 +93,7 @@ class ComputeController {
             @RequestParam(required = false) String darkness,
             @RequestParam(required = false) String minMoonSeparation,
             @RequestParam(required = false) String maxMoonIllumination,
+            @RequestParam(required = false) String maxAirmass,
             @RequestParam(required = false) String tz,
             @RequestParam(required = false) String targetKind,
             @RequestParam(name = SITE_ID, required = false) String siteId,
@@ -111,7 +116,8 @@ class ComputeController {
                         DEFAULT_MIN_ALTITUDE_DEG),
                 params.optionalChoice("darkness", darkness, Darkness.class, DEFAULT_DARKNESS),
                 params.optionalNumber("minMoonSeparation", minMoonSeparation, 0, 180),
-                params.optionalNumber("maxMoonIllumination", maxMoonIllumination, 0, 1));
+                params.optionalNumber("maxMoonIllumination", maxMoonIllumination, 0, 1),
+                params.optionalNumber("maxAirmass", maxAirmass, LOWEST_MAX_AIRMASS, HIGHEST_MAX_AIRMASS));
         if (first != null && last != null) {
             if (last.isBefore(first)) {
                 params.reject("to", "must not be before from (" + first + "), was " + last);

@@ -56,6 +56,9 @@ class EngineSkyComputations implements SkyComputations {
         if (conditions.maxMoonIllumination() != null) {
             constraints = constraints.withMaxMoonIllumination(conditions.maxMoonIllumination());
         }
+        if (conditions.maxAirmass() != null) {
+            constraints = constraints.withMaxAirmass(conditions.maxAirmass());
+        }
         return constraints;
     }
 

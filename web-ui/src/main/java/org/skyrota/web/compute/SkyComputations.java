@@ -60,10 +60,17 @@ public interface SkyComputations {
      *
      * @param minMoonSeparationDeg null when there is no such limit
      * @param maxMoonIllumination null when there is no such limit (applies only while the Moon is up)
+     * @param maxAirmass the highest Kasten–Young airmass, null when there is no such limit
      */
-    record Conditions(double minAltitudeDeg, Darkness darkness, Double minMoonSeparationDeg, Double maxMoonIllumination) {
+    record Conditions(double minAltitudeDeg, Darkness darkness, Double minMoonSeparationDeg, Double maxMoonIllumination,
+                      Double maxAirmass) {
         public Conditions {
             Objects.requireNonNull(darkness, "darkness");
+        }
+
+        /** Without an airmass limit. */
+        public Conditions(double minAltitudeDeg, Darkness darkness, Double minMoonSeparationDeg, Double maxMoonIllumination) {
+            this(minAltitudeDeg, darkness, minMoonSeparationDeg, maxMoonIllumination, null);
         }
     }
 

@@ -8,7 +8,10 @@ import jakarta.validation.constraints.NotBlank;
 import jakarta.validation.constraints.NotNull;
 import jakarta.validation.constraints.Size;
 
-/** An instrument as a client sends it; filters by name in wheel order. */
+import com.fasterxml.jackson.annotation.JsonIgnoreProperties;
+
+/** An instrument as a client sends it; filters by name in wheel order. A stored instrument's {@code id} is ignored. */
+@JsonIgnoreProperties({"id"})
 record InstrumentForm(
         Long version,
         @NotNull Long telescopeId,

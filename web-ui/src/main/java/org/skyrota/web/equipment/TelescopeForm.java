@@ -6,12 +6,16 @@ import jakarta.validation.constraints.NotBlank;
 import jakarta.validation.constraints.NotNull;
 import jakarta.validation.constraints.Size;
 
+import com.fasterxml.jackson.annotation.JsonIgnoreProperties;
+
 
 /**
  * A telescope as a client sends it; {@code version} is required when editing. The mount fields may be left out:
  * {@code mountKind} defaults to {@code EQUATORIAL}, {@code needsMeridianFlip} to false, the hour-angle limits to none
- * (-180 and 180 degrees). A flip or a limit on an {@code ALT_AZIMUTH} mount is refused naming the field.
+ * (-180 and 180 degrees). A flip or a limit on an {@code ALT_AZIMUTH} mount is refused naming the field. A stored
+ * telescope's {@code id} is ignored, so that what a GET answers can be sent back.
  */
+@JsonIgnoreProperties({"id"})
 record TelescopeForm(
         Long version,
         @NotNull Long siteId,

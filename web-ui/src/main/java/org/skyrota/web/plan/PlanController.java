@@ -2,6 +2,7 @@ package org.skyrota.web.plan;
 
 import java.time.Instant;
 import java.time.LocalDate;
+import java.util.ArrayList;
 import java.util.List;
 
 import org.skyrota.web.plan.PlanViews.CompareView;
@@ -9,6 +10,9 @@ import org.skyrota.web.plan.PlanViews.EffectView;
 import org.skyrota.web.plan.PlanViews.PlanStatusView;
 import org.skyrota.web.plan.PlanViews.PlanView;
 import org.skyrota.web.plan.PlanViews.UsageView;
+import org.skyrota.web.system.FieldProblem;
+import org.skyrota.web.system.InvalidParametersException;
+import org.skyrota.web.system.SupportedDates;
 import org.springframework.web.bind.annotation.GetMapping;
 import org.springframework.web.bind.annotation.PathVariable;
 import org.springframework.web.bind.annotation.PostMapping;
@@ -33,18 +37,28 @@ class PlanController {
     @GetMapping("/api/plans/draft")
     PlanView draft(@RequestParam(required = false) LocalDate from, @RequestParam(required = false) LocalDate to,
                    @RequestParam(required = false) Long siteId) {
-        return service.draft(from, to, siteId);
+        return service.draft(from, ordered(from, to), siteId);
     }
 
     @GetMapping("/api/plans/published")
     PlanView published(@RequestParam(required = false) LocalDate from, @RequestParam(required = false) LocalDate to,
                        @RequestParam(required = false) Long siteId) {
-        return service.published(from, to, siteId);
+        return service.published(from, ordered(from, to), siteId);
     }
 
     @GetMapping("/api/plans/compare")
     CompareView compare(@RequestParam(required = false) LocalDate from, @RequestParam(required = false) LocalDate to) {
-        return service.compare(from, to);
+        return service.compare(from, ordered(from, to));
+    }
+
+    /** {@code to}, when it is not before {@code from}; else a 400 naming both (an empty answer would hide the mistake). */
+    private static LocalDate ordered(LocalDate from, LocalDate to) {
+        List<FieldProblem> problems = new ArrayList<>();
+        SupportedDates.checkOrder("from", from, "to", to, problems);
+        if (!problems.isEmpty()) {
+            throw new InvalidParametersException(problems);
+        }
+        return to;
     }
 
     /**

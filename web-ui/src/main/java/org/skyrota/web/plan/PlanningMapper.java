@@ -326,7 +326,8 @@ public final class PlanningMapper {
         ObservingLimits limits = ObservingLimits.dark(r.getMinAltitudeDeg())
                 .withDarkness(darkness(r.getDarkness()))
                 .withMoon(r.getMinMoonSeparationDeg() == null ? 0 : r.getMinMoonSeparationDeg(),
-                        r.getMaxMoonIllumination() == null ? 1 : r.getMaxMoonIllumination());
+                        r.getMaxMoonIllumination() == null ? 1 : r.getMaxMoonIllumination())
+                .withMaxAirmass(r.getMaxAirmass() == null ? Double.POSITIVE_INFINITY : r.getMaxAirmass());
         List<ExposureStep> steps = r.getExposures().stream()
                 .map(e -> new ExposureStep(e.getFilterName(), e.getSeconds(), e.getCount())).toList();
         // A lone visit with nothing observed before it needs no spacing; requests stored before the spacing fields

@@ -12,7 +12,10 @@ import jakarta.validation.constraints.NotNull;
 import jakarta.validation.constraints.Pattern;
 import jakarta.validation.constraints.Size;
 
-/** A program as a client sends it; {@code version} is required when editing. */
+import com.fasterxml.jackson.annotation.JsonIgnoreProperties;
+
+/** A program as a client sends it; {@code version} is required when editing. A stored program's {@code id} is ignored. */
+@JsonIgnoreProperties({"id"})
 record ProgramForm(
         Long version,
         @NotBlank @Size(max = 40) @Pattern(regexp = "[A-Za-z0-9][A-Za-z0-9._-]*", message = "may hold letters, digits, '.', '_' and '-' only") String code,
@@ -29,8 +32,18 @@ record ProgramForm(
             @NotNull LocalDate firstNight,
             @NotNull LocalDate lastNight) {
 
+        // Nights out of order: both are named, so that each field shows it.
+        @AssertTrue(message = "must not be after lastNight")
+        boolean isFirstNight() {
+            return inOrder();
+        }
+
         @AssertTrue(message = "must not be before firstNight")
         boolean isLastNight() {
+            return inOrder();
+        }
+
+        private boolean inOrder() {
             return firstNight == null || lastNight == null || !lastNight.isBefore(firstNight);
         }
 

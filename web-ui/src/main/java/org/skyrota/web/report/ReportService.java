@@ -1,14 +1,21 @@
 package org.skyrota.web.report;
 
+import java.time.Clock;
 import java.time.Duration;
 import java.time.Instant;
+import java.time.temporal.ChronoUnit;
 import java.util.List;
 import java.util.Locale;
+import java.util.Optional;
 
+import org.skyrota.web.equipment.Telescope;
+import org.skyrota.web.equipment.TelescopeRepository;
 import org.skyrota.web.plan.PlanRevision;
 import org.skyrota.web.plan.PlanRevisionRepository;
 import org.skyrota.web.plan.PlanVisit;
 import org.skyrota.web.plan.VisitKey;
+import org.skyrota.web.site.Site;
+import org.skyrota.web.site.SiteMapper;
 import org.skyrota.web.system.AuditLog;
 import org.skyrota.web.system.FieldProblem;
 import org.skyrota.web.system.InvalidParametersException;
@@ -29,12 +36,17 @@ public class ReportService {
 
     private final ObservationReportRepository reports;
     private final PlanRevisionRepository revisions;
+    private final TelescopeRepository telescopes;
     private final AuditLog audit;
+    private final Clock clock;
 
-    ReportService(ObservationReportRepository reports, PlanRevisionRepository revisions, AuditLog audit) {
+    ReportService(ObservationReportRepository reports, PlanRevisionRepository revisions, TelescopeRepository telescopes,
+                  AuditLog audit, Clock clock) {
         this.reports = reports;
         this.revisions = revisions;
+        this.telescopes = telescopes;
         this.audit = audit;
+        this.clock = clock;
     }
 
     public record ReportView(long id, String visitId, long requestId, long telescopeId, String outcome, String reason,
@@ -68,6 +80,9 @@ public class ReportService {
         if (visit.getTelescopeId() != token.telescopeId()) {
             throw new AccessDeniedException("visit " + visitId + " is planned on another telescope");
         }
+        if (observedAt != null) {
+            requirePlausible(observedAt, visit);
+        }
         // observedAt is when the visit started; a report that leaves it out is taken to say the visit ran as
         // published, and the spacing of the open repeats is measured from that start, not from when it was sent.
         long seconds = how == Outcome.DONE ? Duration.between(visit.getStart(), visit.getEnd()).toSeconds() : 0;
@@ -77,5 +92,28 @@ public class ReportService {
         ReportView view = ReportView.of(saved);
         audit.record("create", "observation-report", saved.getId(), null, view);
         return view;
+    }
+
+    /**
+     * A visit is observed neither later than now (the server's clock) nor before its night began (local noon of the
+     * visit's night at its telescope's site): such a time is a typing or clock error, and the spacing of the open
+     * repeats would be measured from it.
+     */
+    private void requirePlausible(Instant observedAt, PlanVisit visit) {
+        Instant now = clock.instant();
+        if (observedAt.isAfter(now)) {
+            throw new InvalidParametersException(List.of(new FieldProblem("observedAt",
+                    "must not be in the future: the server's clock reads " + now.truncatedTo(ChronoUnit.SECONDS)
+                            + ", was " + observedAt)));
+        }
+        Optional<Site> site = telescopes.findById(visit.getTelescopeId()).map(Telescope::getSite);
+        if (site.isPresent() && visit.getNight() != null) {
+            Instant nightStart = SiteMapper.nightStart(site.get(), visit.getNight());
+            if (observedAt.isBefore(nightStart)) {
+                throw new InvalidParametersException(List.of(new FieldProblem("observedAt",
+                        "must not be before the visit's night began (local noon of " + visit.getNight() + " at its site, "
+                                + nightStart + "), was " + observedAt)));
+            }
+        }
     }
 }

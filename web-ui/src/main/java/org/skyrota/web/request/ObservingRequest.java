@@ -63,6 +63,10 @@ public class ObservingRequest extends StoredEntity {
     @Column(name = "max_moon_illumination")
     private Double maxMoonIllumination;
 
+    /** Highest Kasten–Young airmass, 1 to 10; null for no limit beyond the minimum altitude. */
+    @Column(name = "max_airmass")
+    private Double maxAirmass;
+
     @Column(name = "earliest_night")
     private LocalDate earliestNight;
 
@@ -155,6 +159,10 @@ public class ObservingRequest extends StoredEntity {
         this.maxMoonIllumination = maxMoonIllumination;
     }
 
+    public void setMaxAirmass(Double maxAirmass) {
+        this.maxAirmass = maxAirmass;
+    }
+
     public void setSchedule(LocalDate earliestNight, LocalDate latestNight, int repeats, int priority) {
         this.earliestNight = earliestNight;
         this.latestNight = latestNight;
@@ -210,6 +218,10 @@ public class ObservingRequest extends StoredEntity {
 
     public Double getMaxMoonIllumination() {
         return maxMoonIllumination;
+    }
+
+    public Double getMaxAirmass() {
+        return maxAirmass;
     }
 
     public LocalDate getEarliestNight() {

@@ -2,6 +2,7 @@ package org.skyrota.web.request;
 
 import java.io.IOException;
 import java.io.InputStream;
+import java.math.BigDecimal;
 import java.time.LocalDate;
 import java.util.ArrayList;
 import java.util.List;
@@ -20,6 +21,7 @@ import org.skyrota.web.program.Program;
 import org.skyrota.web.program.ProgramRepository;
 import org.skyrota.web.system.FieldProblem;
 import org.skyrota.web.system.InvalidParametersException;
+import org.skyrota.web.system.SupportedDates;
 import org.springframework.stereotype.Service;
 import org.springframework.transaction.PlatformTransactionManager;
 import org.springframework.transaction.support.TransactionTemplate;
@@ -36,8 +38,8 @@ public class RequestImports {
      * years before 1 do not come back from storage as they went in (a request's last night came back before its
      * first, and every planner run after it failed).
      */
-    static final LocalDate FIRST_NIGHT = LocalDate.of(1900, 1, 1);
-    static final LocalDate LAST_NIGHT = LocalDate.of(2200, 12, 31);
+    static final LocalDate FIRST_NIGHT = SupportedDates.FIRST;
+    static final LocalDate LAST_NIGHT = SupportedDates.LAST;
 
     private final PluginRegistry plugins;
     private final RequestService requests;
@@ -122,15 +124,11 @@ public class RequestImports {
                 problems.add(new FieldProblem(where + "darkness", "must be astronomical, nautical or civil: " + r.darkness()));
             }
         }
-        night(where + "earliestNight", r.earliestNight(), problems);
-        night(where + "latestNight", r.latestNight(), problems);
-        if (r.earliestNight() != null && r.latestNight() != null && r.latestNight().isBefore(r.earliestNight())) {
-            problems.add(new FieldProblem(where + "latestNight", "must not be before earliestNight (" + r.earliestNight() + ")"));
-        }
         RequestForm form = new RequestForm(null, programId == null ? -1L : programId, r.owner(), r.targetName(),
-                r.raDeg() == null ? null : Double.toString(r.raDeg()), r.decDeg() == null ? null : Double.toString(r.decDeg()),
+                plain(r.raDeg()), plain(r.decDeg()),
+                null, null,
                 r.exposures().stream().map(e -> new RequestForm.ExposureForm(e.filter(), e.seconds(), e.count())).toList(),
-                r.minAltitudeDeg(), darkness, r.minMoonSeparationDeg(), r.maxMoonIllumination(), r.earliestNight(),
+                r.minAltitudeDeg(), darkness, r.minMoonSeparationDeg(), r.maxMoonIllumination(), r.maxAirmass(), r.earliestNight(),
                 r.latestNight(), r.repeats(), r.intervalDays() > 0 ? r.intervalDays() * 24.0 : null, null, r.priority(),
                 r.targetKind(), r.targetParameters());
         for (ConstraintViolation<RequestForm> v : validator.validate(form)) {
@@ -142,10 +140,9 @@ public class RequestImports {
         return form;
     }
 
-    private static void night(String field, LocalDate night, List<FieldProblem> problems) {
-        if (night != null && (night.isBefore(FIRST_NIGHT) || night.isAfter(LAST_NIGHT))) {
-            problems.add(new FieldProblem(field, "must lie from " + FIRST_NIGHT + " to " + LAST_NIGHT + ": " + night));
-        }
+    /** Decimal degrees as the form's text, without an exponent ({@code 1.0E-5} is not a coordinate as typed). */
+    private static String plain(Double degrees) {
+        return degrees == null ? null : new BigDecimal(Double.toString(degrees)).toPlainString();
     }
 
     private static Optional<Program> program(String codeOrTitle, List<Program> stored) {

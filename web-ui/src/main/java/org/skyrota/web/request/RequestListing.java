@@ -37,13 +37,14 @@ class RequestListing {
             Map.entry("id", "id"), Map.entry("version", "version"), Map.entry("createdAt", "created_at"),
             Map.entry("updatedAt", "updated_at"), Map.entry("owner", "owner"), Map.entry("targetName", "target_name"),
             Map.entry("targetKind", "target_kind"), Map.entry("raDeg", "ra_deg"), Map.entry("decDeg", "dec_deg"),
-            Map.entry("minAltitudeDeg", "min_altitude_deg"), Map.entry("darkness", "darkness"),
+            Map.entry("minAltitudeDeg", "min_altitude_deg"), Map.entry("maxAirmass", "max_airmass"),
+            Map.entry("darkness", "darkness"),
             Map.entry("earliestNight", "earliest_night"), Map.entry("latestNight", "latest_night"),
             Map.entry("repeats", "repeats"), Map.entry("priority", "priority"), Map.entry("state", "state"),
             Map.entry("program", "program_id"), Map.entry("programId", "program_id"));
 
     private static final String COLUMNS = "id, version, program_id, owner, target_name, ra_deg, dec_deg, min_altitude_deg,"
-            + " darkness, min_moon_separation_deg, max_moon_illumination, earliest_night, latest_night, repeats,"
+            + " darkness, min_moon_separation_deg, max_moon_illumination, max_airmass, earliest_night, latest_night, repeats,"
             + " repeat_interval_hours, repeat_tolerance_hours, priority, state, rejection_reason, created_at, updated_at,"
             + " target_kind, alert_ivorn";
 
@@ -139,7 +140,7 @@ class RequestListing {
                 rs.getString("target_name"), rs.getDouble("ra_deg"), rs.getDouble("dec_deg"), new ArrayList<>(),
                 rs.getDouble("min_altitude_deg"), DarknessLimit.valueOf(rs.getString("darkness")),
                 rs.getObject("min_moon_separation_deg", Double.class), rs.getObject("max_moon_illumination", Double.class),
-                rs.getObject("earliest_night", LocalDate.class), rs.getObject("latest_night", LocalDate.class),
+                rs.getObject("max_airmass", Double.class), rs.getObject("earliest_night", LocalDate.class), rs.getObject("latest_night", LocalDate.class),
                 rs.getInt("repeats"), rs.getObject("repeat_interval_hours", Double.class),
                 rs.getObject("repeat_tolerance_hours", Double.class), rs.getInt("priority"),
                 RequestState.valueOf(rs.getString("state")), rs.getString("rejection_reason"),

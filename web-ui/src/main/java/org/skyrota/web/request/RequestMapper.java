@@ -21,6 +21,9 @@ public final class RequestMapper {
         if (r.getMaxMoonIllumination() != null) {
             c = c.withMaxMoonIllumination(r.getMaxMoonIllumination());
         }
+        if (r.getMaxAirmass() != null) {
+            c = c.withMaxAirmass(r.getMaxAirmass());
+        }
         return c;
     }
 

@@ -1,9 +1,11 @@
 package org.skyrota.web.request;
 
+import java.math.BigDecimal;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
 
+import org.skyrota.web.account.AccountRepository;
 import org.skyrota.web.account.CurrentUser;
 import org.skyrota.web.plugin.TargetKinds;
 import org.skyrota.web.program.Program;
@@ -14,6 +16,7 @@ import org.skyrota.web.system.FieldProblem;
 import org.skyrota.web.system.InvalidParametersException;
 import org.skyrota.web.system.NotFoundException;
 import org.skyrota.web.system.PageView;
+import org.skyrota.web.system.SupportedDates;
 import org.springframework.context.ApplicationEventPublisher;
 import org.springframework.data.domain.Pageable;
 import org.springframework.stereotype.Service;
@@ -33,10 +36,13 @@ public class RequestService {
     private final TargetKinds targetKinds;
     private final RequestListing listing;
     private final ApplicationEventPublisher events;
+    private final AccountRepository accounts;
 
     RequestService(ObservingRequestRepository requests, ProgramRepository programs, AuditLog audit,
-                   TargetKinds targetKinds, RequestListing listing, ApplicationEventPublisher events) {
+                   TargetKinds targetKinds, RequestListing listing, AccountRepository accounts,
+                   ApplicationEventPublisher events) {
         this.events = events;
+        this.accounts = accounts;
         this.listing = listing;
         this.audit = audit;
         this.targetKinds = targetKinds;
@@ -80,6 +86,11 @@ public class RequestService {
         String owner = form.owner() == null || form.owner().isBlank() ? user.username() : form.owner().trim();
         if (!user.reviewer() && !owner.equals(user.username())) {
             throw new InvalidParametersException(List.of(new FieldProblem("owner", "a requester can only create their own requests")));
+        }
+        // Whoever asks exists; anyone else named as the owner must have an account, or the request would belong to
+        // nobody who could ever see it.
+        if (!owner.equals(user.username()) && !accounts.existsByUsername(owner)) {
+            throw new InvalidParametersException(List.of(new FieldProblem("owner", "names no account: " + owner)));
         }
         ObservingRequest r = new ObservingRequest(referencedProgram(form.programId()), owner);
         apply(form, r);
@@ -193,8 +204,8 @@ public class RequestService {
         Map<String, String> parameters = form.targetParameters() == null ? Map.of()
                 : form.targetParameters();
         if (TargetKinds.isFixed(kind)) {
-            raDeg = coordinate("ra", form.ra(), problems);
-            decDeg = coordinate("dec", form.dec(), problems);
+            raDeg = coordinate(true, form.ra(), form.raDeg(), problems);
+            decDeg = coordinate(false, form.dec(), form.decDeg(), problems);
             if (!parameters.isEmpty()) {
                 problems.add(new FieldProblem(TargetKinds.PARAMETERS_FIELD, "a fixed target takes ra and dec, no parameters"));
             }
@@ -207,9 +218,10 @@ public class RequestService {
                 problems.addAll(e.problems());
             }
         }
-        if (form.earliestNight() != null && form.latestNight() != null && form.latestNight().isBefore(form.earliestNight())) {
-            problems.add(new FieldProblem("latestNight", "must not be before earliestNight (" + form.earliestNight() + ")"));
-        }
+        // JSON bodies are held to these dates as they are read; imported records are checked here.
+        SupportedDates.check("earliestNight", form.earliestNight(), problems);
+        SupportedDates.check("latestNight", form.latestNight(), problems);
+        SupportedDates.checkOrder("earliestNight", form.earliestNight(), "latestNight", form.latestNight(), problems);
         int repeats = form.repeats() == null ? 1 : form.repeats();
         problems.addAll(repeatSpacingProblems(repeats, form.repeatIntervalHours(), form.repeatToleranceHours()));
         if (!problems.isEmpty()) {
@@ -220,22 +232,40 @@ public class RequestService {
         r.setConditions(form.minAltitudeDeg() == null ? DEFAULT_MIN_ALTITUDE_DEG : form.minAltitudeDeg(),
                 form.darkness() == null ? DarknessLimit.ASTRONOMICAL : form.darkness(),
                 form.minMoonSeparationDeg(), form.maxMoonIllumination());
+        r.setMaxAirmass(form.maxAirmass());
         r.setSchedule(form.earliestNight(), form.latestNight(), repeats, form.priority());
         r.setRepeatSpacing(form.repeatIntervalHours(), form.repeatIntervalHours() == null ? null
                 : form.repeatToleranceHours() == null ? 0.0 : form.repeatToleranceHours());
         r.setExposures(form.exposures().stream().map(e -> new Exposure(e.filter().trim(), e.seconds(), e.count())).toList());
     }
 
-    private static double coordinate(String field, String text, List<FieldProblem> problems) {
-        if (text == null || text.isBlank()) {
+    /**
+     * Right ascension or declination in degrees, from {@code ra}/{@code dec} (decimal degrees or sexagesimal text) or
+     * from {@code raDeg}/{@code decDeg} (decimal degrees, as a request read back carries them); when both are given,
+     * they must agree to within a thousandth of an arcsecond.
+     */
+    private static double coordinate(boolean rightAscension, String text, Double degrees, List<FieldProblem> problems) {
+        String field = rightAscension ? "ra" : "dec";
+        String degreesField = rightAscension ? "raDeg" : "decDeg";
+        if ((text == null || text.isBlank()) && degrees == null) {
             problems.add(new FieldProblem(field, "must not be blank (a fixed target needs ra and dec)"));
             return 0;
         }
+        Double fromText = text == null || text.isBlank() ? null : parsed(field, rightAscension, text, problems);
+        Double fromDegrees = degrees == null ? null
+                : parsed(degreesField, rightAscension, new BigDecimal(Double.toString(degrees)).toPlainString(), problems);
+        if (fromText != null && fromDegrees != null && Math.abs(fromText - fromDegrees) > 1e-3 / 3600) {
+            problems.add(new FieldProblem(degreesField, "disagrees with " + field + " (" + text + "): send one of them"));
+        }
+        return fromText != null ? fromText : fromDegrees != null ? fromDegrees : 0;
+    }
+
+    private static Double parsed(String field, boolean rightAscension, String text, List<FieldProblem> problems) {
         try {
-            return "ra".equals(field) ? Sexagesimal.rightAscensionDeg(text) : Sexagesimal.declinationDeg(text);
+            return rightAscension ? Sexagesimal.rightAscensionDeg(text) : Sexagesimal.declinationDeg(text);
         } catch (IllegalArgumentException e) {
             problems.add(new FieldProblem(field, e.getMessage()));
-            return 0;
+            return null;
         }
     }
 }

@@ -22,6 +22,7 @@ record RequestView(
         DarknessLimit darkness,
         Double minMoonSeparationDeg,
         Double maxMoonIllumination,
+        Double maxAirmass,
         LocalDate earliestNight,
         LocalDate latestNight,
         int repeats,
@@ -41,7 +42,7 @@ record RequestView(
                 r.getRaDeg(), r.getDecDeg(),
                 r.getExposures().stream().map(e -> new RequestForm.ExposureForm(e.getFilterName(), e.getSeconds(), e.getCount())).toList(),
                 r.getMinAltitudeDeg(), r.getDarkness(), r.getMinMoonSeparationDeg(), r.getMaxMoonIllumination(),
-                r.getEarliestNight(), r.getLatestNight(), r.getRepeats(),
+                r.getMaxAirmass(), r.getEarliestNight(), r.getLatestNight(), r.getRepeats(),
                 r.getRepeatIntervalHours(), r.getRepeatToleranceHours(), r.getPriority(), r.getState(), r.getRejectionReason(),
                 r.getCreatedAt(), r.getUpdatedAt(), r.getTargetKind(), r.getTargetParameters(), r.getAlertIvorn());
     }

@@ -44,6 +44,7 @@ import org.skyrota.web.system.ConflictException;
 import org.skyrota.web.system.FieldProblem;
 import org.skyrota.web.system.InvalidParametersException;
 import org.skyrota.web.system.NotFoundException;
+import org.skyrota.web.system.SupportedDates;
 import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
 import org.springframework.dao.OptimisticLockingFailureException;
@@ -138,6 +139,7 @@ public class RunService {
         }
         Map<String, HardMediumSoftLongScore> weights = weights(form, problems);
         unknownSite(form.siteIds(), problems);
+        nightsOutOfRange(form, problems);
         if (!problems.isEmpty()) {
             throw new InvalidParametersException(problems);
         }
@@ -180,6 +182,19 @@ public class RunService {
                 problems.add(new FieldProblem("siteIds[" + i + "]", id == null ? "must be a site id" : "no site with id " + id));
                 return;
             }
+        }
+    }
+
+    /**
+     * Nights outside the server's dates ({@link SupportedDates}; a JSON body is held to them as it is read, a run an
+     * alert starts here), and nights out of order named on {@code firstNight} too, beside the check above that names
+     * {@code lastNight}: a conflict between two fields names both.
+     */
+    private static void nightsOutOfRange(RunForm form, List<FieldProblem> problems) {
+        SupportedDates.check("firstNight", form.firstNight(), problems);
+        SupportedDates.check("lastNight", form.lastNight(), problems);
+        if (form.firstNight() != null && form.lastNight() != null && form.lastNight().isBefore(form.firstNight())) {
+            problems.add(new FieldProblem("firstNight", "must not be after lastNight (" + form.lastNight() + ")"));
         }
     }
 

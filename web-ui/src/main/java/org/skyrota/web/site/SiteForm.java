@@ -9,12 +9,17 @@ import jakarta.validation.constraints.NotBlank;
 import jakarta.validation.constraints.NotNull;
 import jakarta.validation.constraints.Size;
 
+import com.fasterxml.jackson.annotation.JsonIgnoreProperties;
+
 import org.skyrota.web.system.IanaZone;
 
 /**
  * A site as a client sends it. {@code version} is the version the edit was made against
- * (ignored when creating); angles in degrees, longitude east-positive.
+ * (ignored when creating); angles in degrees, longitude east-positive; {@code timeZone} an IANA region name. The
+ * read-only members of a stored site ({@code id}, {@code createdAt}, {@code updatedAt}) are ignored, so that what a GET
+ * answers can be sent back; any other member the form does not have is refused.
  */
+@JsonIgnoreProperties({"id", "createdAt", "updatedAt"})
 record SiteForm(
         Long version,
         @NotBlank @Size(max = 100) String name,

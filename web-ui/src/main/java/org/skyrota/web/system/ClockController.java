@@ -3,6 +3,8 @@ package org.skyrota.web.system;
 import java.time.Instant;
 import java.util.List;
 
+import com.fasterxml.jackson.annotation.JsonIgnoreProperties;
+
 import org.springframework.transaction.PlatformTransactionManager;
 import org.springframework.transaction.support.TransactionTemplate;
 import org.springframework.web.bind.annotation.GetMapping;
@@ -29,6 +31,8 @@ class ClockController {
 
     record ClockView(Instant now, boolean settable) {}
 
+    /** {@code settable}, read-only, is ignored: what a GET answers can be sent back. */
+    @JsonIgnoreProperties({"settable"})
     record ClockForm(Instant now) {}
 
     @GetMapping("/api/clock")

@@ -1,6 +1,8 @@
 package org.skyrota.web.system;
 
 import java.net.URI;
+import java.time.Instant;
+import java.time.LocalDate;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
@@ -10,8 +12,9 @@ import jakarta.persistence.EntityManagerFactory;
 import jakarta.validation.ConstraintViolation;
 import jakarta.validation.ConstraintViolationException;
 
+import com.fasterxml.jackson.annotation.JsonProperty;
+
 import org.slf4j.Logger;
-import tools.jackson.core.JacksonException;
 import org.slf4j.LoggerFactory;
 import org.springframework.beans.TypeMismatchException;
 import org.springframework.beans.factory.ObjectProvider;
@@ -38,6 +41,14 @@ import org.springframework.web.context.request.ServletWebRequest;
 import org.springframework.web.context.request.WebRequest;
 import org.springframework.web.method.annotation.HandlerMethodValidationException;
 import org.springframework.web.servlet.mvc.method.annotation.ResponseEntityExceptionHandler;
+
+import tools.jackson.core.JacksonException;
+import tools.jackson.core.JsonParser;
+import tools.jackson.core.TokenStreamContext;
+import tools.jackson.core.exc.StreamReadException;
+import tools.jackson.databind.exc.InvalidFormatException;
+import tools.jackson.databind.exc.MismatchedInputException;
+import tools.jackson.databind.exc.UnrecognizedPropertyException;
 
 /**
  * Turns every exception a handler throws into an RFC 9457 problem document with the right
@@ -191,8 +202,15 @@ public class ProblemAdvice extends ResponseEntityExceptionHandler {
     protected ResponseEntity<Object> handleTypeMismatch(
             TypeMismatchException e, HttpHeaders headers, HttpStatusCode status, WebRequest request) {
         String name = e.getPropertyName() != null ? e.getPropertyName() : "value";
+        String was = ", was '" + (e.getValue() == null ? null : SupportedDates.shortened(String.valueOf(e.getValue()))) + "'";
+        if (e.getRequiredType() == LocalDate.class) {
+            return badRequest(e, List.of(new FieldProblem(name, SupportedDates.DATE_RULE + was)), request);
+        }
+        if (e.getRequiredType() == Instant.class) {
+            return badRequest(e, List.of(new FieldProblem(name, SupportedDates.INSTANT_RULE + was)), request);
+        }
         String expected = e.getRequiredType() != null ? e.getRequiredType().getSimpleName() : "another type";
-        return badRequest(e, List.of(new FieldProblem(name, "must be a " + expected + ", was '" + e.getValue() + "'")), request);
+        return badRequest(e, List.of(new FieldProblem(name, "must be a " + expected + was)), request);
     }
 
     @Override
@@ -223,9 +241,10 @@ public class ProblemAdvice extends ResponseEntityExceptionHandler {
     @Override
     protected ResponseEntity<Object> handleHttpMessageNotReadable(
             HttpMessageNotReadableException e, HttpHeaders headers, HttpStatusCode status, WebRequest request) {
-        String field = jsonField(e);
+        JacksonException json = jacksonCause(e);
+        String field = json == null ? null : jsonField(json);
         if (field != null) {
-            return badRequest(e, List.of(new FieldProblem(field, "has a value of the wrong type or form")), request);
+            return badRequest(e, List.of(new FieldProblem(field, jsonMessage(json))), request);
         }
         ProblemDetail body = ProblemDetail.forStatusAndDetail(HttpStatus.BAD_REQUEST,
                 "The request body is missing or is not valid JSON of the expected shape.");
@@ -278,22 +297,109 @@ public class ProblemAdvice extends ResponseEntityExceptionHandler {
         return text.length() == 0 ? "The request is not valid." : text.toString();
     }
 
-    /** The body field a JSON mapping failure is about ({@code exposures[0].seconds}), or null when there is none. */
-    private static String jsonField(Throwable e) {
+    private static JacksonException jacksonCause(Throwable e) {
         for (Throwable t = e; t != null; t = t.getCause()) {
-            if (t instanceof JacksonException j && !j.getPath().isEmpty()) {
-                StringBuilder path = new StringBuilder();
-                for (JacksonException.Reference ref : j.getPath()) {
-                    if (ref.getPropertyName() != null) {
-                        path.append(path.length() == 0 ? "" : ".").append(ref.getPropertyName());
-                    } else if (ref.getIndex() >= 0) {
-                        path.append('[').append(ref.getIndex()).append(']');
-                    }
-                }
-                return path.length() == 0 ? null : path.toString();
+            if (t instanceof JacksonException j) {
+                return j;
             }
         }
         return null;
+    }
+
+    /**
+     * The body field a JSON failure is about ({@code exposures[0].seconds}), or null when there is none (the JSON
+     * itself is broken). A member given twice is named by the parser, not by the path, which ends at its object.
+     */
+    private static String jsonField(JacksonException j) {
+        StringBuilder path = new StringBuilder();
+        for (JacksonException.Reference ref : j.getPath()) {
+            if (ref.getPropertyName() != null) {
+                path.append(path.length() == 0 ? "" : ".").append(ref.getPropertyName());
+            } else if (ref.getIndex() >= 0) {
+                path.append('[').append(ref.getIndex()).append(']');
+            }
+        }
+        if (duplicateMember(j) && j.processor() instanceof JsonParser parser && parser.currentName() != null) {
+            path.append(path.length() == 0 ? "" : ".").append(parser.currentName());
+        } else if (path.length() == 0 && j instanceof StreamReadException && j.processor() instanceof JsonParser parser) {
+            // JSON broken inside a member the mapping had not reached (an unknown one, say): the body's member it is in.
+            for (TokenStreamContext c = parser.streamReadContext(); c != null; c = c.getParent()) {
+                if (c.inObject() && c.getParent() != null && c.getParent().inRoot() && c.currentName() != null) {
+                    path.append(c.currentName());
+                }
+            }
+        }
+        return path.length() == 0 ? null : path.toString();
+    }
+
+    private static boolean duplicateMember(JacksonException j) {
+        return j instanceof StreamReadException && j.getOriginalMessage() != null
+                && j.getOriginalMessage().startsWith("Duplicate Object property");
+    }
+
+    /** What the member must be, in the words of the API (SERVER.md, "Strict input"), from the type Jackson wanted. */
+    private static String jsonMessage(JacksonException j) {
+        if (j instanceof UnrecognizedPropertyException u) {
+            List<String> known = u.getKnownPropertyIds() == null ? List.of()
+                    : u.getKnownPropertyIds().stream().map(String::valueOf).sorted().toList();
+            return "is not a member of this body" + (known.isEmpty() ? "" : "; its members are " + String.join(", ", known));
+        }
+        if (duplicateMember(j)) {
+            return "is given twice";
+        }
+        if (j instanceof StreamReadException) {
+            return "is not valid JSON (NaN and Infinity are no JSON numbers; text is in double quotes)";
+        }
+        Class<?> type = j instanceof MismatchedInputException m ? m.getTargetType() : null;
+        String was = j instanceof InvalidFormatException f && f.getValue() != null
+                ? ", was " + (f.getValue() instanceof String text ? "'" + SupportedDates.shortened(text) + "'" : f.getValue()) : "";
+        if (type == null) {
+            return "has a value of the wrong type or form";
+        }
+        if (type == NumberOrText.class) {
+            return NumberOrText.RULE;
+        }
+        if (type == LocalDate.class) {
+            return SupportedDates.DATE_RULE + was;
+        }
+        if (type == Instant.class) {
+            return SupportedDates.INSTANT_RULE + was;
+        }
+        if (type == Integer.class || type == int.class || type == Long.class || type == long.class
+                || type == Short.class || type == short.class) {
+            return "must be a whole number, a JSON number without a fraction" + was;
+        }
+        if (type == Double.class || type == double.class || type == Float.class || type == float.class) {
+            return "must be a JSON number" + was;
+        }
+        if (type == Boolean.class || type == boolean.class) {
+            return "must be true or false" + was;
+        }
+        if (type == String.class) {
+            return "must be text, a JSON string" + was;
+        }
+        if (type.isEnum()) {
+            return "must be one of " + String.join(", ", enumNames(type)) + was;
+        }
+        if (java.util.Collection.class.isAssignableFrom(type) || type.isArray()) {
+            return "must be a JSON array";
+        }
+        return "must be a JSON object";
+    }
+
+    /** An enum's names as the JSON writes them: its {@code @JsonProperty} names where it has them. */
+    private static List<String> enumNames(Class<?> type) {
+        List<String> names = new ArrayList<>();
+        for (Object constant : type.getEnumConstants()) {
+            String name = ((Enum<?>) constant).name();
+            try {
+                JsonProperty property = type.getField(name).getAnnotation(JsonProperty.class);
+                names.add(property != null && !property.value().isEmpty() ? property.value() : name);
+            } catch (NoSuchFieldException e) {
+                names.add(name);
+            }
+        }
+        return names;
     }
 
     private static String lastNode(String path) {

@@ -1,6 +1,5 @@
 package org.skyrota.web.system;
 
-import java.time.DateTimeException;
 import java.time.LocalDate;
 import java.time.ZoneId;
 import java.time.format.DateTimeFormatter;
@@ -61,17 +60,16 @@ public final class QueryParameters {
         }
     }
 
-    /** An IANA zone such as {@code Europe/Madrid}; null when absent. */
+    /** An IANA time-zone region such as {@code Europe/Madrid} ({@link IanaZone}); null when absent. */
     public ZoneId optionalZone(String name, String raw) {
         if (isAbsent(raw)) {
             return null;
         }
-        try {
-            return ZoneId.of(raw.trim());
-        } catch (DateTimeException e) {
-            problems.add(new FieldProblem(name, "must be an IANA time zone such as Europe/Madrid, was '" + raw + "'"));
-            return null;
+        ZoneId zone = IanaZone.Validator.region(raw.trim()).orElse(null);
+        if (zone == null) {
+            problems.add(new FieldProblem(name, IanaZone.MESSAGE + ", was '" + SupportedDates.shortened(raw) + "'"));
         }
+        return zone;
     }
 
     /** One of the enum's constants, named in lower case; {@code defaultValue} when absent. */

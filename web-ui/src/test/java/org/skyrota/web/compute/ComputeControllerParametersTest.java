@@ -94,6 +94,16 @@ class ComputeControllerParametersTest {
     }
 
     @Test
+    void almanacTakesTheEndsOfTheDateRangeAndAnEtcRegionForAFixedOffset() throws Exception {
+        when(sky.almanac(any(), any())).thenAnswer(call -> emptyNight(call.getArgument(1)));
+        mvc.perform(get("/api/almanac?lat=24.5&lon=54.4&date=1900-01-01&tz=Etc/GMT-4")).andExpect(status().isOk());
+        mvc.perform(get("/api/almanac?lat=24.5&lon=54.4&date=2200-12-31&tz=Asia/Dubai")).andExpect(status().isOk());
+        // Etc/GMT-4 is four hours east of Greenwich: the IANA database's own sign convention.
+        verify(sky).almanac(new Observer(24.5, 54.4, 0, ZoneId.of("Etc/GMT-4")), LocalDate.of(1900, 1, 1));
+        verify(sky).almanac(new Observer(24.5, 54.4, 0, ZoneId.of("Asia/Dubai")), LocalDate.of(2200, 12, 31));
+    }
+
+    @Test
     void visibilityAppliesTheDocumentedDefaults() throws Exception {
         when(sky.windows(any(), any(), any(), any(), any())).thenReturn(List.of());
         mvc.perform(get("/api/visibility?" + TARGET + "&lat=37.2&lon=-3.6&from=2027-01-10&to=2027-01-12"))
@@ -113,13 +123,13 @@ class ComputeControllerParametersTest {
 
         String body = mvc.perform(get("/api/visibility?" + TARGET + "&" + SITE
                         + "&from=2027-01-10&to=2027-01-11&minAltitude=25.5&darkness=nautical"
-                        + "&minMoonSeparation=40&maxMoonIllumination=0.5"))
+                        + "&minMoonSeparation=40&maxMoonIllumination=0.5&maxAirmass=1.8"))
                 .andExpect(status().isOk())
                 .andReturn().getResponse().getContentAsString();
 
         verify(sky).windows(eq(new Observer(37.2, -3.6, 680, ZoneId.of("Europe/Madrid"))), eq(new Target(83.8, -5.4)),
                 conditions.capture(), eq(LocalDate.of(2027, 1, 10)), eq(LocalDate.of(2027, 1, 11)));
-        assertThat(conditions.getValue()).isEqualTo(new Conditions(25.5, Darkness.NAUTICAL, 40.0, 0.5));
+        assertThat(conditions.getValue()).isEqualTo(new Conditions(25.5, Darkness.NAUTICAL, 40.0, 0.5, 1.8));
         assertThat(body).isEqualTo("{\"windows\":["
                 + "{\"night\":\"2027-01-10\",\"start\":\"2027-01-10T19:00:00Z\",\"end\":\"2027-01-11T01:30:00Z\",\"maxAltitude\":52.44},"
                 + "{\"night\":\"2027-01-11\",\"start\":\"2027-01-11T18:56:00Z\",\"end\":\"2027-01-12T01:26:00Z\",\"maxAltitude\":52.45}]}");
@@ -130,10 +140,10 @@ class ComputeControllerParametersTest {
         when(sky.windows(any(), any(), any(), any(), any())).thenReturn(List.of());
         // 2028 is a leap year: 2028-01-01 .. 2028-12-31 is 366 nights.
         mvc.perform(get("/api/visibility?ra=360&dec=90&lat=-90&lon=180&elevation=-500&from=2028-01-01&to=2028-12-31"
-                        + "&minAltitude=-1&minMoonSeparation=180&maxMoonIllumination=0&darkness=CIVIL"))
+                        + "&minAltitude=-1&minMoonSeparation=180&maxMoonIllumination=0&maxAirmass=10&darkness=CIVIL"))
                 .andExpect(status().isOk());
         verify(sky).windows(new Observer(-90, 180, -500, null), new Target(0, 90),
-                new Conditions(-1, Darkness.CIVIL, 180.0, 0.0), LocalDate.of(2028, 1, 1), LocalDate.of(2028, 12, 31));
+                new Conditions(-1, Darkness.CIVIL, 180.0, 0.0, 10.0), LocalDate.of(2028, 1, 1), LocalDate.of(2028, 12, 31));
     }
 
     @ParameterizedTest(name = "almanac with {0}={1}: {2}")
@@ -152,9 +162,17 @@ class ComputeControllerParametersTest {
             date      | 2027-13-01   | must be a date as YYYY-MM-DD
             date      | 2027-02-29   | must be a date as YYYY-MM-DD
             date      | 01/06/2027   | must be a date as YYYY-MM-DD
-            date      | 1500-01-01   | must be between 1800-01-01 and 2200-12-31
-            tz        | Mars/Olympus | must be an IANA time zone
-            tz        | Europe/Nowhere | must be an IANA time zone
+            date      | 1500-01-01   | must be between 1900-01-01 and 2200-12-31
+            date      | 1899-12-31   | must be between 1900-01-01 and 2200-12-31
+            date      | 2201-01-01   | must be between 1900-01-01 and 2200-12-31
+            date      | +10000-01-01 | must be between 1900-01-01 and 2200-12-31
+            tz        | Mars/Olympus | must be an IANA time-zone region
+            tz        | Europe/Nowhere | must be an IANA time-zone region
+            tz        | GMT+5        | must be an IANA time-zone region
+            tz        | UTC+02:00    | must be an IANA time-zone region
+            tz        | +05:00       | must be an IANA time-zone region
+            tz        | Z            | must be an IANA time-zone region
+            tz        | europe/madrid | must be an IANA time-zone region
             """)
     void almanacRejectsABadValueNamingTheParameter(String name, String value, String message) throws Exception {
         String query = replace("lat=37.2&lon=-3.6&elevation=680&date=2027-06-01&tz=Europe/Madrid", name, value);
@@ -191,7 +209,13 @@ class ComputeControllerParametersTest {
             maxMoonIllumination | 1.01       | must be between 0 and 1
             maxMoonIllumination | -0.01      | must be between 0 and 1
             maxMoonIllumination | half       | must be a decimal number
-            tz                  | Nowhere    | must be an IANA time zone
+            tz                  | Nowhere    | must be an IANA time-zone region
+            tz                  | GMT-3      | must be an IANA time-zone region
+            from                | 1899-12-31 | must be between 1900-01-01 and 2200-12-31
+            to                  | 0000-01-01 | must be between 1900-01-01 and 2200-12-31
+            maxAirmass          | 0.99       | must be between 1 and 10
+            maxAirmass          | 10.5       | must be between 1 and 10
+            maxAirmass          | NaN        | must be a decimal number
             """)
     void visibilityRejectsABadValueNamingTheParameter(String name, String value, String message) throws Exception {
         String query = replace(TARGET + "&" + SITE + "&from=2027-01-10&to=2027-01-12&minAltitude=30&darkness=astronomical"

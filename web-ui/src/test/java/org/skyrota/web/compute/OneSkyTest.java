@@ -210,8 +210,8 @@ class OneSkyTest {
 
     /** The planner's candidates for the stored network, prepared from the server's own planner inputs. */
     private PreparedProblem candidates() {
-        PlanningMapper.Mapped mapped = tx.execute(status -> inputs.problem(LocalDate.parse(FIRST), LocalDate.parse(LAST),
-                null, List.of(), List.of()));
+        PlanningMapper.Mapped mapped = tx.execute(status -> inputs.forRun(inputs.term(), LocalDate.parse(FIRST),
+                LocalDate.parse(LAST), null, List.of()).mapped());
         return new CandidateGenerator(new EngineSkyModel()).prepare(mapped.problem(),
                 PlannerWeights.defaults().withOverrides(Map.of()));
     }

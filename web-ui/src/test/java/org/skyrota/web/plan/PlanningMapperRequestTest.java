@@ -48,6 +48,15 @@ class PlanningMapperRequestTest {
     }
 
     @Test
+    void anAirmassLimitCrossesToThePlannersLimitsAndNoneMeansNone() {
+        ObservingRequest limited = stored(1, null, null, 3);
+        limited.setMaxAirmass(1.2);
+        assertThat(PlanningMapper.request(limited, TARGET, 1, FIRST, LAST).limits().maxAirmass()).isEqualTo(1.2);
+        assertThat(PlanningMapper.request(stored(1, null, null, 3), TARGET, 1, FIRST, LAST).limits().maxAirmass())
+                .isEqualTo(Double.POSITIVE_INFINITY);
+    }
+
+    @Test
     void theSpacingOfRepeatsCrossesAsDurations() {
         Request planned = PlanningMapper.request(stored(3, 24.0, 2.0, 4), TARGET, 3, FIRST, LAST);
         assertThat(planned.repeats()).isEqualTo(3);

@@ -7,6 +7,8 @@ import java.io.StringReader;
 import java.nio.charset.StandardCharsets;
 import java.time.Duration;
 import java.time.Instant;
+import java.time.LocalDate;
+import java.time.ZoneId;
 import java.util.List;
 import java.util.Map;
 
@@ -28,6 +30,7 @@ import org.skyrota.web.account.Role;
 import org.skyrota.web.support.ApiClient;
 import org.skyrota.web.support.ApiClient.Answer;
 import org.skyrota.web.support.PlanningNetwork;
+import org.skyrota.web.system.ServerClock;
 import org.springframework.beans.factory.annotation.Autowired;
 import org.springframework.boot.test.context.SpringBootTest;
 import org.springframework.boot.test.web.server.LocalServerPort;
@@ -51,6 +54,7 @@ class ReportsAndExportsTest {
     @LocalServerPort int port;
     @Autowired AccountRepository accounts;
     @Autowired PasswordEncoder encoder;
+    @Autowired ServerClock clock;
 
     ApiClient api;
     /** The id of each token made here, by its secret. */
@@ -108,9 +112,45 @@ class ReportsAndExportsTest {
         return token;
     }
 
+    /** A report observed at the visit's published start; the server's clock is moved past it first. */
     String report(String visitId, String outcome) {
+        List<String> starts = published.json("$.visits[?(@.id == '" + visitId + "')].start");
+        Instant observedAt = starts.isEmpty() ? Instant.parse("2027-01-11T01:00:00Z") : Instant.parse(starts.get(0));
+        reached(observedAt);
         return "{\"visitId\":\"" + visitId + "\",\"outcome\":\"" + outcome + "\",\"reason\":\"clouds\",\"observedAt\":\""
-                + Instant.parse("2027-01-11T01:00:00Z") + "\"}";
+                + observedAt + "\"}";
+    }
+
+    /** Moves the server's clock (forward only) to a minute after {@code t}: a visit is reported once it happened. */
+    void reached(Instant t) {
+        if (clock.instant().isBefore(t.plusSeconds(60))) {
+            clock.set(t.plusSeconds(60));
+        }
+    }
+
+    /**
+     * Seen before: observedAt 9999-12-31 and 1900-01-01 were taken. A visit is observed neither after now (the server's
+     * clock) nor before its night began: local noon of its night at its site (Europe/Rome, UTC+1 in January).
+     */
+    @Test
+    void anObservedAtInTheFutureOrBeforeTheVisitsNightIsRefused() {
+        String visit = published.<List<String>>json("$.visits[*].id").get(0);
+        String night = published.json("$.visits[0].night");
+        Instant nightStart = LocalDate.parse(night).atTime(12, 0)
+                .atZone(ZoneId.of("Europe/Rome")).toInstant();
+        String reports = token("reports", network.telescopeId);
+        reached(Instant.parse(published.<String>json("$.visits[0].start")));
+        for (Instant refused : List.of(Instant.parse("9999-12-31T00:00:00Z"), Instant.parse("1900-01-01T00:00:00Z"),
+                nightStart.minusSeconds(1), clock.instant().plus(Duration.ofDays(1)))) {
+            Answer a = api.post("/api/reports", ApiClient.bearer(reports), "{\"visitId\":\"" + visit
+                    + "\",\"outcome\":\"partial\",\"observedAt\":\"" + refused + "\"}");
+            assertThat(a.status()).as(refused + " " + night + " " + a.body()).isEqualTo(400);
+            assertThat((String) a.json("$.parameter")).isEqualTo("observedAt");
+        }
+        Answer atNightStart = api.post("/api/reports", ApiClient.bearer(reports), "{\"visitId\":\"" + visit
+                + "\",\"outcome\":\"partial\",\"observedAt\":\"" + nightStart + "\"}");
+        assertThat(atNightStart.status()).as(atNightStart.body()).isEqualTo(201);
+        assertThat(Instant.parse(atNightStart.json("$.observedAt"))).isEqualTo(nightStart);
     }
 
     @Test
@@ -231,6 +271,7 @@ class ReportsAndExportsTest {
         assertThat(publishedStart).as("the second repeat was published too close, so the rule has to move it")
                 .hasSize(1);
         assertThat(Instant.parse(publishedStart.get(0))).isBefore(observedAt.plus(Duration.ofHours(20)));
+        reached(observedAt);
         Answer done = api.post("/api/reports", ApiClient.bearer(reports), "{\"visitId\":\"" + first
                 + "\",\"outcome\":\"done\",\"observedAt\":\"" + observedAt + "\"}");
         assertThat(done.status()).as(done.body()).isEqualTo(201);

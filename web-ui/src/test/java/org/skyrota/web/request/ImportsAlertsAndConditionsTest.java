@@ -105,6 +105,28 @@ class ImportsAlertsAndConditionsTest {
         assertThat(storedRequests()).isEqualTo(before + 2);
     }
 
+    /**
+     * Seen before: a coordinator's import could name an owner with no account. The server's checks hold an imported
+     * record as they hold a form: owners, nights within 1900..2200, and the airmass limit stored.
+     */
+    @Test
+    void importedRecordsAreHeldToTheFormsRulesAndKeepTheirAirmassLimit() {
+        long before = storedRequests();
+        String bad = "title,target,ra,dec,filter_plan,priority,program,owner,earliest_night,max_airmass\n"
+                + "Fine,NGC 2392,112.3,20.9,V:60x3,3,PI,impstudent,2027-01-10,1.3\n"
+                + "Nobody's,NGC 2264,100.2,9.9,V:60x3,3,PI,nobody-at-all,2027-01-10,\n"
+                + "Too early,NGC 2264,100.2,9.9,V:60x3,3,PI,impstudent,1800-01-01,\n";
+        Answer refused = api.send("POST", "/api/requests/import", COORD, bad, "text/csv");
+        assertThat(refused.status()).as(refused.body()).isEqualTo(400);
+        assertThat(refused.<List<String>>json("$.errors[*].field")).containsExactly("record 2: owner", "record 3: earliestNight");
+        assertThat(storedRequests()).isEqualTo(before);
+        String good = bad.substring(0, bad.indexOf("Nobody's"));
+        Answer ok = api.send("POST", "/api/requests/import", COORD, good, "text/csv");
+        assertThat(ok.status()).as(ok.body()).isEqualTo(201);
+        assertThat(((Number) ok.json("$.requests[0].maxAirmass")).doubleValue()).isEqualTo(1.3);
+        assertThat((String) ok.json("$.requests[0].owner")).isEqualTo("impstudent");
+    }
+
     @Test
     void aFileWithAnyBadRowStoresNothingAndNamesEveryProblem() {
         long before = storedRequests();

@@ -21,6 +21,9 @@ import org.junit.jupiter.api.BeforeEach;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.CsvSource;
+import org.skyrota.web.account.Account;
+import org.skyrota.web.account.AccountRepository;
+import org.skyrota.web.account.Role;
 import org.skyrota.web.equipment.InstrumentRepository;
 import org.skyrota.web.equipment.TelescopeRepository;
 import org.skyrota.web.program.ProgramRepository;
@@ -29,6 +32,7 @@ import org.springframework.beans.factory.annotation.Autowired;
 import org.skyrota.web.support.CsrfOnEveryRequest;
 import org.springframework.boot.test.context.SpringBootTest;
 import org.springframework.context.annotation.Import;
+import org.springframework.security.crypto.password.PasswordEncoder;
 import org.springframework.security.test.context.support.WithMockUser;
 import org.springframework.boot.webmvc.test.autoconfigure.AutoConfigureMockMvc;
 import org.springframework.http.MediaType;
@@ -52,12 +56,20 @@ class RequestApiTest {
     @Autowired InstrumentRepository instruments;
     @Autowired TelescopeRepository telescopes;
     @Autowired SiteRepository sites;
+    @Autowired AccountRepository accounts;
+    @Autowired PasswordEncoder encoder;
 
     long programId;
     long telescopeId;
 
     @BeforeEach
     void equipmentAndProgram() throws Exception {
+        // The owners the requests name: a request's owner must have an account.
+        for (String owner : List.of("student", "student2")) {
+            if (!accounts.existsByUsername(owner)) {
+                accounts.save(new Account(owner, encoder.encode("password1"), Role.REQUESTER));
+            }
+        }
         long siteId = id(create("/api/sites", """
                 {"name":"Plateau Station","latitudeDeg":-23.5,"longitudeDeg":-67.8,"elevationM":2400,"timeZone":"America/Santiago"}"""));
         telescopeId = id(create("/api/telescopes", """
@@ -86,7 +98,7 @@ class RequestApiTest {
         return """
                 {"programId":%d,"owner":"student","targetName":"NGC 1976","ra":%s,"dec":%s,
                  "exposures":[{"filter":"V","seconds":60,"count":10},{"filter":"R","seconds":45,"count":5}],
-                 "maxMoonIllumination":0.6,"earliestNight":"2027-01-10","latestNight":"2027-02-10","repeats":2,
+                 "maxMoonIllumination":0.6,"maxAirmass":1.8,"earliestNight":"2027-01-10","latestNight":"2027-02-10","repeats":2,
                  "repeatIntervalHours":48,"repeatToleranceHours":6,"priority":%d}"""
                 .formatted(programId, ra, dec, priority);
     }
@@ -135,7 +147,9 @@ class RequestApiTest {
         refused(send(ok.replace("\"filter\":\"V\"", "\"filter\":\"\"")), "exposures[0].filter");
         refused(send(ok.replace("\"maxMoonIllumination\":0.6", "\"maxMoonIllumination\":1.5")), "maxMoonIllumination");
         refused(send(ok.replace("\"repeats\":2", "\"repeats\":0")), "repeats");
-        refused(send(ok.replace("2027-02-10", "2027-01-01")), "latestNight");
+        // Nights out of order: both fields are named.
+        send(ok.replace("2027-02-10", "2027-01-01")).andExpect(status().isBadRequest())
+                .andExpect(jsonPath("$.errors[*].field").value(contains("earliestNight", "latestNight")));
         refused(send(ok.replace("\"programId\":" + programId, "\"programId\":999999")), "programId");
         // Values of the wrong JSON type are named too.
         refused(send(ok.replace("\"priority\":3", "\"priority\":\"high\"")), "priority");
@@ -269,6 +283,8 @@ class RequestApiTest {
             assertThat(listed).as("request %d listed vs read alone", id).isEqualTo(JsonPath.read("[" + alone + "]", "$"));
         }
         assertThat(JsonPath.<String>read(listing, "$.items[1].rejectionReason")).isEqualTo("Below 30° from every site");
+        assertThat(JsonPath.<Double>read(listing, "$.items[1].maxAirmass")).isEqualTo(1.8);
+        assertThat(JsonPath.<Object>read(listing, "$.items[2].maxAirmass")).isNull();
         assertThat(JsonPath.<List<String>>read(listing, "$.items[2].exposures[*].filter")).containsExactly("Ha", "B", "V");
         assertThat(JsonPath.<String>read(listing, "$.items[0].targetParameters.body")).isEqualTo("jupiter");
         // Pages split a sort key's ties by id, so that paging through never repeats or skips a request.
@@ -298,6 +314,127 @@ class RequestApiTest {
                 .andExpect(content().contentType(MediaType.APPLICATION_PROBLEM_JSON));
         mvc.perform(delete("/api/telescopes/" + telescopeId)).andExpect(status().isConflict());
         mvc.perform(get("/api/programs?active=true")).andExpect(jsonPath("$.items[0].grants[0].hours").value(40.0));
+    }
+
+    /** Seen before: "maxAirmass":1.2 and "minAltitude":60 were dropped without a word, and the request stored. */
+    @Test
+    void anUnknownMemberIsRefusedNamingItAndNothingIsStored() throws Exception {
+        String ok = request("\"05:35:17\"", "\"-05:23:28\"", 3);
+        refused(send(ok.replace("\"priority\":3", "\"priority\":3,\"minAltitude\":60")), "minAltitude");
+        refused(send(ok.replace("\"maxAirmass\":1.8", "\"maxAirmas\":1.2")), "maxAirmas");
+        refused(send(ok.replace("\"count\":5", "\"count\":5,\"exposure\":300")), "exposures[1].exposure");
+        send(ok.replace("\"priority\":3", "\"priority\":3,\"minAltitude\":60"))
+                .andExpect(jsonPath("$.errors[0].message").value(containsString("is not a member of this body")))
+                .andExpect(jsonPath("$.errors[0].message").value(containsString("minAltitudeDeg")));
+        assertThat(requests.count()).isZero();
+    }
+
+    /** Seen before: priority 2.5 was stored as 2. Numbers, text and booleans are what the form declares. */
+    @ParameterizedTest(name = "{0}: {1} -> {2} is refused")
+    @CsvSource(delimiter = '|', textBlock = """
+            priority             | "priority":3                  | "priority":2.5
+            priority             | "priority":3                  | "priority":3.0
+            priority             | "priority":3                  | "priority":"3"
+            repeats              | "repeats":2                   | "repeats":true
+            exposures[0].count   | "count":10                    | "count":1e1
+            exposures[0].seconds | "seconds":60                  | "seconds":"60"
+            programId            | "programId":                  | "programId":"1",
+            targetName           | "targetName":"NGC 1976"       | "targetName":1976
+            maxMoonIllumination  | "maxMoonIllumination":0.6     | "maxMoonIllumination":"0.6"
+            darkness             | "maxMoonIllumination":0.6     | "darkness":0
+            ra                   | "ra":"05:35:17"               | "ra":true
+            dec                  | "dec":"-05:23:28"             | "dec":["-05:23:28"]
+            priority             | "priority":3                  | "priority":3,"priority":5
+            """)
+    void aValueOfAnotherJsonTypeIsRefusedNamingItsField(String field, String from, String to) throws Exception {
+        String ok = request("\"05:35:17\"", "\"-05:23:28\"", 3);
+        String body = from.equals("\"programId\":") ? ok.replace("\"programId\":" + programId + ",", to) : ok.replace(from, to);
+        assertThat(body).isNotEqualTo(ok);
+        refused(send(body), field);
+        assertThat(requests.count()).isZero();
+    }
+
+    /**
+     * Seen before: years 0000, -1000 and +10000 were taken, and years before 1 came back from storage as other years.
+     * The ends of the range are stored and read back exactly (also on PostgreSQL).
+     */
+    @Test
+    void nightsOutside1900To2200AreRefusedAndTheEndsAreStoredExactly() throws Exception {
+        String ok = request("\"05:35:17\"", "\"-05:23:28\"", 3);
+        for (String night : List.of("0000-01-01", "-1000-01-01", "+10000-01-01", "1899-12-31", "2201-01-01", "2027-02-30", "20270110")) {
+            refused(send(ok.replace("2027-01-10", night)), "earliestNight");
+        }
+        refused(send(ok.replace("\"2027-01-10\"", "20270110")), "earliestNight");
+        assertThat(requests.count()).isZero();
+        long id = id(create("/api/requests", ok.replace("2027-01-10", "1900-01-01").replace("2027-02-10", "2200-12-31")));
+        mvc.perform(get("/api/requests/" + id))
+                .andExpect(jsonPath("$.earliestNight").value("1900-01-01"))
+                .andExpect(jsonPath("$.latestNight").value("2200-12-31"));
+        mvc.perform(get("/api/requests?size=5"))
+                .andExpect(jsonPath("$.items[0].earliestNight").value("1900-01-01"))
+                .andExpect(jsonPath("$.items[0].latestNight").value("2200-12-31"));
+    }
+
+    /** Seen before: a coordinator could create a request for an owner who has no account. */
+    @Test
+    void anOwnerWithoutAnAccountIsRefusedNamingIt() throws Exception {
+        String ok = request("\"05:35:17\"", "\"-05:23:28\"", 3);
+        refused(send(ok.replace("\"owner\":\"student\"", "\"owner\":\"nobody-here\"")), "owner");
+        assertThat(requests.count()).isZero();
+        // The caller needs no named owner; their own name is theirs.
+        mvc.perform(post("/api/requests").contentType(MediaType.APPLICATION_JSON).content(ok.replace("\"owner\":\"student\",", "")))
+                .andExpect(status().isCreated()).andExpect(jsonPath("$.owner").value("coordinator"));
+    }
+
+    @Test
+    void maxAirmassIsStoredWithinItsRangeAndRefusedOutsideIt() throws Exception {
+        String ok = request("\"05:35:17\"", "\"-05:23:28\"", 3);
+        mvc.perform(post("/api/requests").contentType(MediaType.APPLICATION_JSON).content(ok))
+                .andExpect(status().isCreated()).andExpect(jsonPath("$.maxAirmass").value(1.8));
+        String without = create("/api/requests", ok.replace("\"maxAirmass\":1.8,", ""));
+        assertThat(JsonPath.<Object>read(without, "$.maxAirmass")).isNull();
+        for (String bad : List.of("0.99", "10.01", "-1", "\"1.2\"")) {
+            refused(send(ok.replace("\"maxAirmass\":1.8", "\"maxAirmass\":" + bad)), "maxAirmass");
+        }
+        for (String edge : List.of("1", "10")) {
+            mvc.perform(post("/api/requests").contentType(MediaType.APPLICATION_JSON)
+                            .content(ok.replace("\"maxAirmass\":1.8", "\"maxAirmass\":" + edge)))
+                    .andExpect(status().isCreated()).andExpect(jsonPath("$.maxAirmass").value(Double.parseDouble(edge)));
+        }
+    }
+
+    /**
+     * What a GET answers can be sent back unchanged with PUT (and POST): its read-only members are ignored and its
+     * raDeg/decDeg stand for ra/dec. A moving target's view (ra and dec read 0) too.
+     */
+    @Test
+    void aRequestReadBackIsTakenBackUnchangedByPutAndPost() throws Exception {
+        long id = id(create("/api/requests", request("\"05:35:17.3\"", "\"-05:23:28\"", 4)));
+        long planet = id(create("/api/requests", """
+                {"programId":%d,"owner":"student2","targetName":"Jupiter","targetKind":"planet","targetParameters":{"body":"jupiter"},
+                 "exposures":[{"filter":"R","seconds":1.5,"count":40}],"priority":5}""".formatted(programId)));
+        for (long each : new long[] {id, planet}) {
+            String read = mvc.perform(get("/api/requests/" + each)).andReturn().getResponse().getContentAsString();
+            String edited = mvc.perform(put("/api/requests/" + each).contentType(MediaType.APPLICATION_JSON).content(read))
+                    .andExpect(status().isOk())
+                    .andReturn().getResponse().getContentAsString();
+            for (String member : List.of("programId", "owner", "targetName", "raDeg", "decDeg", "exposures", "minAltitudeDeg",
+                    "darkness", "minMoonSeparationDeg", "maxMoonIllumination", "maxAirmass", "earliestNight", "latestNight",
+                    "repeats", "repeatIntervalHours", "repeatToleranceHours", "priority", "state", "targetKind",
+                    "targetParameters", "createdAt")) {
+                assertThat((Object) JsonPath.read(edited, "$." + member)).as(each + " " + member)
+                        .isEqualTo(JsonPath.read(read, "$." + member));
+            }
+            mvc.perform(post("/api/requests").contentType(MediaType.APPLICATION_JSON).content(read))
+                    .andExpect(status().isCreated())
+                    .andExpect(jsonPath("$.version").value(0))
+                    .andExpect(jsonPath("$.targetName").value(JsonPath.<String>read(read, "$.targetName")));
+        }
+        // Sent beside ra, raDeg must agree with it.
+        String read = mvc.perform(get("/api/requests/" + id)).andReturn().getResponse().getContentAsString();
+        String both = read.replace("\"raDeg\":", "\"ra\":\"06:00:00\",\"raDeg\":");
+        mvc.perform(put("/api/requests/" + id).contentType(MediaType.APPLICATION_JSON).content(both))
+                .andExpect(status().isBadRequest()).andExpect(jsonPath("$.parameter").value("raDeg"));
     }
 
     private ResultActions send(String body) throws Exception {

@@ -74,8 +74,18 @@ class SiteApiTest {
             longitudeDeg      | -180.5
             elevationM        | 9100
             timeZone          | "Atlantis/Central"
+            timeZone          | "GMT+5"
+            timeZone          | "UTC+02:00"
+            timeZone          | "+05:00"
+            timeZone          | "Z"
+            timeZone          | "australia/sydney"
+            timeZone          | ""
+            timeZone          | 10
             name              | "  "
+            name              | 5
             darkSkyZenithVMag | 30
+            darkSkyZenithVMag | "21.6"
+            elevationM        | true
             """)
     void invalidFieldIsNamed(String field, String json) throws Exception {
         String body = RIDGE.replaceFirst("\"" + field + "\":[^,]+,", "\"" + field + "\":" + json + ",");
@@ -84,6 +94,60 @@ class SiteApiTest {
                 .andExpect(content().contentType(MediaType.APPLICATION_PROBLEM_JSON))
                 .andExpect(jsonPath("$.parameter").value(field))
                 .andExpect(jsonPath("$.errors[0].field").value(field));
+    }
+
+    @ParameterizedTest(name = "{0} is an IANA region")
+    @CsvSource({"Europe/Madrid", "Etc/GMT-5", "UTC", "America/Argentina/San_Juan"})
+    void ianaRegionNamesAreTaken(String zone) throws Exception {
+        mvc.perform(post("/api/sites").contentType(MediaType.APPLICATION_JSON)
+                        .content(RIDGE.replace("Australia/Sydney", zone).replace("Ridge Station", "Ridge " + zone)))
+                .andExpect(status().isCreated())
+                .andExpect(jsonPath("$.timeZone").value(zone));
+    }
+
+    /** Seen before: a site's "GMT+5" was stored; it is no region and reads the wrong way round (Etc/GMT-5 is UTC+5). */
+    @Test
+    void aTimeZoneThatIsAnOffsetIsRefusedNamingIt() throws Exception {
+        mvc.perform(post("/api/sites").contentType(MediaType.APPLICATION_JSON).content(RIDGE.replace("Australia/Sydney", "GMT+5")))
+                .andExpect(status().isBadRequest())
+                .andExpect(jsonPath("$.parameter").value("timeZone"))
+                .andExpect(jsonPath("$.errors[0].message").value(containsString("IANA time-zone region")));
+        assertThat(sites.count()).isZero();
+    }
+
+    @Test
+    void anUnknownMemberIsRefusedNamingItAndNothingIsStored() throws Exception {
+        for (String[] c : new String[][] {
+                {RIDGE.replace("\"elevationM\"", "\"elevation\""), "elevation"},
+                {RIDGE.replace("\"altitudeDeg\":12", "\"altitude\":12"), "horizon[1].altitude"},
+                {RIDGE.replace("{\"name\"", "{\"nam\":\"x\",\"name\""), "nam"},
+                {RIDGE.replace("{\"name\"", "{\"latitudeDeg\":10,\"name\""), "latitudeDeg"}}) {
+            mvc.perform(post("/api/sites").contentType(MediaType.APPLICATION_JSON).content(c[0]))
+                    .andExpect(status().isBadRequest())
+                    .andExpect(content().contentType(MediaType.APPLICATION_PROBLEM_JSON))
+                    .andExpect(jsonPath("$.parameter").value(c[1]));
+        }
+        assertThat(sites.count()).isZero();
+    }
+
+    /** What a GET answers can be sent back unchanged: its id and time stamps are read-only and ignored. */
+    @Test
+    void aSiteReadBackIsTakenBackUnchangedByPutAndPost() throws Exception {
+        String created = mvc.perform(post("/api/sites").contentType(MediaType.APPLICATION_JSON).content(RIDGE))
+                .andExpect(status().isCreated()).andReturn().getResponse().getContentAsString();
+        long id = ((Number) JsonPath.read(created, "$.id")).longValue();
+        String read = mvc.perform(get("/api/sites/" + id)).andReturn().getResponse().getContentAsString();
+        String edited = mvc.perform(put("/api/sites/" + id).contentType(MediaType.APPLICATION_JSON).content(read))
+                .andExpect(status().isOk())
+                .andReturn().getResponse().getContentAsString();
+        for (String member : new String[] {"$.name", "$.latitudeDeg", "$.longitudeDeg", "$.elevationM", "$.timeZone",
+                "$.darkSkyZenithVMag", "$.horizon", "$.createdAt"}) {
+            assertThat((Object) JsonPath.read(edited, member)).as(member).isEqualTo(JsonPath.read(read, member));
+        }
+        mvc.perform(post("/api/sites").contentType(MediaType.APPLICATION_JSON).content(read.replace("Ridge Station", "Ridge Two")))
+                .andExpect(status().isCreated())
+                .andExpect(jsonPath("$.id").value(org.hamcrest.Matchers.not((int) id)))
+                .andExpect(jsonPath("$.timeZone").value("Australia/Sydney"));
     }
 
     @Test

@@ -180,6 +180,7 @@ public final class CsvRequestImporter implements RequestImporter {
             }
             List<ExposureRecord> exposures = exposures();
             Double minAltitude = number(RequestColumns.MIN_ALTITUDE, 0, 90, "degrees");
+            Double maxAirmass = number(RequestColumns.MAX_AIRMASS, 1, 10, "an airmass");
             String darkness = cell(RequestColumns.DARKNESS).toLowerCase(Locale.ROOT);
             if (!darkness.isEmpty() && !DARKNESS.contains(darkness)) {
                 problem(RequestColumns.DARKNESS, "darkness must be astronomical, nautical or civil: \"" + cell(RequestColumns.DARKNESS) + "\"");
@@ -211,7 +212,7 @@ public final class CsvRequestImporter implements RequestImporter {
                 return null;
             }
             return new RequestRecord(title, target, kind, ra, dec, parameters, exposures, minAltitude,
-                    darkness.isEmpty() ? null : darkness, maxMoon, minSeparation, earliest, latest, repeats, interval,
+                    darkness.isEmpty() ? null : darkness, maxMoon, minSeparation, maxAirmass, earliest, latest, repeats, interval,
                     priority, program, owner.isEmpty() ? null : owner, notes);
         }
 

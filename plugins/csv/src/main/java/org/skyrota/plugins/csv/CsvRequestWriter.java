@@ -36,6 +36,7 @@ public final class CsvRequestWriter {
             row.add(number(r.decDeg()));
             row.add(FilterPlan.format(r.exposures()));
             row.add(number(r.minAltitudeDeg()));
+            row.add(number(r.maxAirmass()));
             row.add(text(r.darkness()));
             row.add(number(r.maxMoonIllumination()));
             row.add(number(r.minMoonSeparationDeg()));

@@ -21,6 +21,8 @@ public final class RequestColumns {
     /** Exposures as {@code filter:seconds x count} split by semicolons: {@code "V:60x3;R:60x3"}. */
     public static final String FILTER_PLAN = "filter_plan";
     public static final String MIN_ALTITUDE = "min_altitude";
+    /** Highest Kasten–Young airmass, 1 to 10; empty for none. */
+    public static final String MAX_AIRMASS = "max_airmass";
     public static final String DARKNESS = "darkness";
     public static final String MAX_MOON_ILLUMINATION = "max_moon_illumination";
     public static final String MIN_MOON_SEPARATION = "min_moon_separation";
@@ -36,7 +38,7 @@ public final class RequestColumns {
 
     /** Every column, in the order the writer uses. */
     public static final List<String> ALL = List.of(TITLE, TARGET, TARGET_KIND, TARGET_PARAMETERS, RA, DEC, FILTER_PLAN,
-            MIN_ALTITUDE, DARKNESS, MAX_MOON_ILLUMINATION, MIN_MOON_SEPARATION, EARLIEST_NIGHT, LATEST_NIGHT, REPEATS,
+            MIN_ALTITUDE, MAX_AIRMASS, DARKNESS, MAX_MOON_ILLUMINATION, MIN_MOON_SEPARATION, EARLIEST_NIGHT, LATEST_NIGHT, REPEATS,
             INTERVAL_DAYS, PRIORITY, PROGRAM, OWNER, NOTES);
 
     public static final Set<String> REQUIRED = Set.of(TITLE, TARGET, FILTER_PLAN, PRIORITY, PROGRAM);

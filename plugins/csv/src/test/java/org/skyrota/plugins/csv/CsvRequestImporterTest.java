@@ -157,11 +157,25 @@ class CsvRequestImporterTest {
     }
 
     @Test
+    void anAirmassLimitIsReadFromOneToTenAndOtherwiseRefusedNamingItsColumn() throws IOException {
+        String header = "title,target,ra,dec,filter_plan,priority,program,max_airmass\n";
+        ImportResult ok = read(header + "Limited,HD 1,10,20,V:60,3,P,1.2\nEdges,HD 2,10,20,V:60,3,P,1\nOpen,HD 3,10,20,V:60,3,P,\n");
+        assertThat(ok.problems()).isEmpty();
+        assertThat(ok.requests()).extracting(RequestRecord::maxAirmass).containsExactly(1.2, 1.0, null);
+        for (String bad : List.of("0.9", "10.5", "thin")) {
+            ImportResult refused = read(header + "Bad,HD 1,10,20,V:60,3,P," + bad + "\n");
+            assertThat(refused.requests()).isEmpty();
+            assertThat(refused.problems()).extracting(ImportProblem::line, ImportProblem::field)
+                    .containsExactly(tuple(2, "max_airmass"));
+        }
+    }
+
+    @Test
     void exportThenImportGivesTheSameRecords() throws IOException {
         List<RequestRecord> requests = List.of(
                 new RequestRecord("M 13 colour", "M 13", "fixed", 250.42333333333335, 36.460277777777776, Map.of(),
                         List.of(new ExposureRecord("V", 60, 3), new ExposureRecord("R", 12.5, 1)), 35.0, "nautical", 0.25, 40.0,
-                        LocalDate.of(2027, 5, 1), LocalDate.of(2027, 6, 1), 4, 3, 5, "Clusters", "student2",
+                        1.35, LocalDate.of(2027, 5, 1), LocalDate.of(2027, 6, 1), 4, 3, 5, "Clusters", "student2",
                         "notes, with \"quotes\"\nand a second line"),
                 new RequestRecord("Jupiter", "Jupiter", "planet", null, null, Map.of("body", "jupiter"),
                         List.of(new ExposureRecord("Ha", 1, 100)), null, null, null, null, null, null, 1, 0, 1, "Planets", null, ""),
