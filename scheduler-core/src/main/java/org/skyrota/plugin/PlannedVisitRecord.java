@@ -20,6 +20,8 @@ import java.time.LocalDate;
  * @param owner       the requester's user name
  * @param program     the program's name
  * @param exposurePlan the exposure plan in short text, for example {@code "V 3x60s, R 3x60s"}
+ * @param sequence    how many times the visit has changed, as a calendar counts it (RFC 5545 SEQUENCE: the published
+ *                    revision in which it last changed); -1 where the plan does not say (then the plan's revision)
  */
 public record PlannedVisitRecord(
         long visitId,
@@ -35,5 +37,14 @@ public record PlannedVisitRecord(
         Instant end,
         String owner,
         String program,
-        String exposurePlan) {
+        String exposurePlan,
+        int sequence) {
+
+    /** A visit whose plan does not count its changes ({@code sequence} -1). */
+    public PlannedVisitRecord(long visitId, long requestId, String title, String targetName, Double raDeg, Double decDeg,
+                              String site, String telescope, LocalDate night, Instant start, Instant end, String owner,
+                              String program, String exposurePlan) {
+        this(visitId, requestId, title, targetName, raDeg, decDeg, site, telescope, night, start, end, owner, program,
+                exposurePlan, -1);
+    }
 }

@@ -46,7 +46,7 @@ class ObservedRepeatSpacingTest {
     /** The reason for the open repeat when only the first two nights are asked for. */
     private static final String NO_ROOM_AFTER_OBSERVED = "observable on 2 nights between 2027-03-01 and 2027-03-02,"
             + " but on the open ones only too close to the Sun or within its repeat spacing from the repeats already"
-            + " observed";
+            + " observed or planned on other nights";
 
     @Test
     void noCandidateOfTheOpenRepeatStartsCloserToTheObservedOneThanTheIntervalLessItsTolerance() {

@@ -68,7 +68,8 @@ class PlanController {
     @PostMapping("/api/plans/draft/publish")
     Publishing.PublishView publish(@RequestParam long revision, @RequestParam(defaultValue = "false") boolean force,
                                    @RequestParam(required = false) String reason) {
-        return publishing.publish(revision, force, reason);
+        // Read after the publishing transaction has committed, so the answer holds what every reader now sees.
+        return publishing.publish(revision, force, reason).withPlan(service.published(null, null, null));
     }
 
     record NightForm(Long telescopeId, Long siteId, LocalDate night, String state, String reason) {}

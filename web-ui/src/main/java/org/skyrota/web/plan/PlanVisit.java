@@ -77,15 +77,18 @@ public class PlanVisit {
         return v;
     }
 
-    /** This visit as a cancelled entry: its last place, the sequence after {@code lastSequence}, and why. */
-    public PlanVisit cancelledAfter(int lastSequence, String why) {
+    /** This visit as a cancelled entry: its last place, and why; its sequence is stamped when it is published. */
+    public PlanVisit cancelled(String why) {
         PlanVisit v = copy();
         v.pinned = false;
         v.cancelled = true;
-        v.sequence = lastSequence + 1;
+        v.sequence = UNSTAMPED;
         v.reason = why;
         return v;
     }
+
+    /** The sequence of a visit that changed in a revision about to be published: it becomes that revision's id. */
+    public static final int UNSTAMPED = -1;
 
     public void place(long telescopeId, LocalDate night, Instant start, Instant end, boolean pinned) {
         this.telescopeId = telescopeId;

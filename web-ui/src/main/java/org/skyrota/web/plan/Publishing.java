@@ -26,8 +26,9 @@ import org.springframework.transaction.annotation.Transactional;
  * Publishing the draft: a promise to the telescopes and the students. A draft that breaks a hard rule is refused
  * unless the coordinator forces it with a reason (audited); a draft that changes nothing publishes nothing new. The
  * published revision keeps history exactly as it was published, takes the draft's visits ahead (of requests still
- * accepted), and keeps the visits it gave up as cancelled entries, each with a higher calendar sequence, so that
- * subscribed calendars remove them.
+ * accepted), and keeps the visits it gave up as cancelled entries. Each visit's calendar sequence is the revision in
+ * which it last changed (new, moved or cancelled), so an unchanged visit keeps its sequence and a changed one gets a
+ * higher one, and subscribed calendars update or remove exactly those.
  */
 @Service
 @Transactional
@@ -60,9 +61,15 @@ public class Publishing {
      * @param message   in plain words
      * @param placed    visits ahead newly in the plan; {@code moved} ahead in another place; {@code cancelled} given up
      * @param forced    the coordinator's reason when the draft broke a hard rule and was published all the same
+     * @param plan      the published plan as the caller reads it (filled in by the controller)
      */
     public record PublishView(Long revision, boolean changed, String message, int placed, int moved, int cancelled,
-                              int unchanged, String forced) {}
+                              int unchanged, String forced, PlanViews.PlanView plan) {
+
+        PublishView withPlan(PlanViews.PlanView published) {
+            return new PublishView(revision, changed, message, placed, moved, cancelled, unchanged, forced, published);
+        }
+    }
 
     /** A broken hard rule as the refusal names it. */
     public record BrokenRule(String rule, List<String> visits, String program, String grant) {}
@@ -122,13 +129,13 @@ public class Publishing {
             if (v.isPlaced()) {
                 PlanVisit was = previous.get(v.key());
                 if (was == null) {
-                    copy.setSequence(0);
+                    copy.setSequence(PlanVisit.UNSTAMPED);
                     placed++;
                 } else if (was.isPlaced() && was.samePlaceAs(v)) {
                     copy.setSequence(was.getSequence());
                     same++;
                 } else {
-                    copy.setSequence(was.getSequence() + 1);
+                    copy.setSequence(PlanVisit.UNSTAMPED);
                     if (was.isPlaced()) {
                         moved++;
                     } else {
@@ -148,7 +155,7 @@ public class Publishing {
                 visits.add(was.copy());
             } else {
                 RequestState state = stateOf.get(was.getRequestId());
-                visits.add(was.cancelledAfter(was.getSequence(), state == null ? "its request was deleted"
+                visits.add(was.cancelled(state == null ? "its request was deleted"
                         : state != RequestState.ACCEPTED ? "its request is " + state.name().toLowerCase()
                         : "dropped from the plan"));
                 cancelled++;
@@ -158,7 +165,7 @@ public class Publishing {
         if (old != null && placed == 0 && moved == 0 && cancelled == 0 && sameNights(old, draft)
                 && sameLeftOut(old, visits)) {
             return new PublishView(old.getId(), false, "Nothing changed since revision " + old.getId()
-                    + " was published, so nothing new was published", 0, 0, 0, same, null);
+                    + " was published, so nothing new was published", 0, 0, 0, same, null, null);
         }
 
         Map<String, Object> before = null;
@@ -176,6 +183,10 @@ public class Publishing {
         copy.setRunId(draft.getRunId());
         copy.markPublished(clock.instant(), CurrentUser.get().username());
         revisions.saveAndFlush(copy);
+        // A visit's calendar sequence is the published revision in which it last changed: it only ever grows.
+        copy.getVisits().stream().filter(v -> v.getSequence() == PlanVisit.UNSTAMPED)
+                .forEach(v -> v.setSequence(copy.getId().intValue()));
+        revisions.saveAndFlush(copy);
         Map<String, Object> after = Drafts.summary(copy);
         after.put("fromDraft", draft.getId());
         if (force && !broken.isEmpty()) {
@@ -187,7 +198,7 @@ public class Publishing {
                 copy.getId(), placed, placed == 1 ? "" : "s", moved, cancelled, same,
                 force && !broken.isEmpty() ? "; published despite broken hard rules: " + why : "");
         return new PublishView(copy.getId(), true, message, placed, moved, cancelled, same,
-                force && !broken.isEmpty() ? why : null);
+                force && !broken.isEmpty() ? why : null, null);
     }
 
     private static boolean sameNights(PlanRevision published, PlanRevision draft) {

@@ -52,6 +52,12 @@ public class TermKeeper {
         }
     }
 
+    /** After the clock was moved forward: what the new time has ended is settled at once. */
+    @org.springframework.context.event.EventListener
+    public void clockMoved(org.skyrota.web.system.ClockMoved moved) {
+        catchUp();
+    }
+
     /** Completes and expires what the reports and the clock say is over; answers how many requests changed. */
     @Transactional
     public synchronized int catchUp() {

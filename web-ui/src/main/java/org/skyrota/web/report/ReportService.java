@@ -17,6 +17,7 @@ import org.skyrota.web.plan.VisitKey;
 import org.skyrota.web.site.Site;
 import org.skyrota.web.site.SiteMapper;
 import org.skyrota.web.system.AuditLog;
+import org.skyrota.web.system.ConflictException;
 import org.skyrota.web.system.FieldProblem;
 import org.skyrota.web.system.InvalidParametersException;
 import org.skyrota.web.system.NotFoundException;
@@ -79,6 +80,11 @@ public class ReportService {
                 .orElseThrow(() -> new NotFoundException("published visit", visitId));
         if (visit.getTelescopeId() != token.telescopeId()) {
             throw new AccessDeniedException("visit " + visitId + " is planned on another telescope");
+        }
+        if (!visit.getStart().isBefore(clock.instant())) {
+            // A report is about what happened: a visit ahead of now has not, and its repeat stays planned as it is.
+            throw new ConflictException("Visit " + visitId + " starts at " + visit.getStart()
+                    + ", which is still ahead; report on it once it has started");
         }
         if (observedAt != null) {
             requirePlausible(observedAt, visit);

@@ -250,7 +250,8 @@ public class Alerts {
             return new Outcome(accepted, null, "No re-plan was started: this alert's nights (" + nights + ") are over at every site.");
         }
         try {
-            return new Outcome(accepted, runs.start(new RunForm(first, last, null, replanSeconds, null)), null);
+            return new Outcome(accepted, runs.start(new RunForm(first, last, null, replanSeconds, null),
+                    "alert: request " + accepted.id() + " (" + accepted.targetName() + ")"), null);
         } catch (ConflictException e) {
             // The request is stored and accepted; the run that is going on, or the next one, will plan it.
             String why = activeRunOver(first, last)

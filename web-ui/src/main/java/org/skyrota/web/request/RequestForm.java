@@ -42,7 +42,7 @@ import tools.jackson.databind.annotation.JsonDeserialize;
  * {@code repeatToleranceHours} (default 0, less than the interval) how much closer a repeat may
  * still start; the cross-field rules are checked in {@link RequestService}.
  */
-@JsonIgnoreProperties({"id", "state", "rejectionReason", "createdAt", "updatedAt"})
+@JsonIgnoreProperties({"id", "state", "rejectionReason", "createdAt", "updatedAt", "alertIvorn"})
 record RequestForm(
         Long version,
         @NotNull Long programId,

@@ -14,7 +14,8 @@ import com.fasterxml.jackson.annotation.JsonIgnoreProperties;
  *     <p>The read-only members of a run's own view are ignored, so that a run read back can be sent again to run
  *     the same nights anew.
  */
-@JsonIgnoreProperties({"id", "state", "startedAt", "finishedAt", "bestScore", "message", "revision"})
+@JsonIgnoreProperties({"id", "state", "startedAt", "finishedAt", "bestScore", "message", "revision", "requestedBy",
+        "purpose", "summary"})
 public record RunForm(LocalDate firstNight, LocalDate lastNight, List<Long> siteIds, Integer seconds,
                       Map<String, Weight> weights) {
 

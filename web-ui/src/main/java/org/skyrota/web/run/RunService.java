@@ -117,7 +117,15 @@ public class RunService {
     }
 
     /** Queues a run; refused with 409 while another queued or running run covers any of its nights. */
-    public synchronized RunView start(RunForm form) {
+    public RunView start(RunForm form) {
+        return start(form, null);
+    }
+
+    /**
+     * Queues a run started for {@code purpose} (for example an alert), which the run's record keeps; a run that fails
+     * is then also recorded in the audit log under its purpose, so that whoever started it learns why.
+     */
+    public synchronized RunView start(RunForm form, String purpose) {
         List<FieldProblem> problems = new ArrayList<>();
         if (form.firstNight() == null) {
             problems.add(new FieldProblem("firstNight", "must be given"));
@@ -154,8 +162,10 @@ public class RunService {
                             + " over some of these nights; wait for it or cancel it");
                 }
             }
-            PlannerRun saved = runs.save(new PlannerRun(form.firstNight(), form.lastNight(), sites, seconds,
-                    weights.isEmpty() ? null : json.writeValueAsString(form.weights()), user));
+            PlannerRun run0 = new PlannerRun(form.firstNight(), form.lastNight(), sites, seconds,
+                    weights.isEmpty() ? null : json.writeValueAsString(form.weights()), user);
+            run0.setPurpose(purpose);
+            PlannerRun saved = runs.save(run0);
             audit.record("create", "planner-run", saved.getId(), null, RunView.of(saved));
             return saved;
         });
@@ -318,7 +328,8 @@ public class RunService {
                 PlanRevision draft = drafts.applyRun(id, problem, result, fed, siteWords);
                 PlannerRun r = find(id);
                 String message = summary.sentence()
-                        + (fed.isEmpty() ? "" : " Telescope nights closed by conditions feeds: " + fed.size() + ".")
+                        + (fed.isEmpty() ? "" : " Before planning, telescope nights closed by conditions feeds: "
+                        + fed.size() + ".")
                         + (feedNotes.isEmpty() ? "" : " " + String.join("; ", feedNotes) + ".");
                 r.end(RunState.FINISHED, clock.instant(), result.score().toString(), message);
                 r.setSummaryJson(json.writeValueAsString(summary));
@@ -365,6 +376,13 @@ public class RunService {
                 PlannerRun r = find(id);
                 if (r.getState().isActive()) {
                     r.end(how, clock.instant(), score, message);
+                    if (how == RunState.FAILED) {
+                        Map<String, Object> failed = new LinkedHashMap<>();
+                        failed.put("state", "failed");
+                        failed.put("message", message);
+                        failed.put("purpose", r.getPurpose());
+                        audit.record("state:failed", "planner-run", id, null, failed);
+                    }
                 }
             });
         } catch (OptimisticLockingFailureException e) {

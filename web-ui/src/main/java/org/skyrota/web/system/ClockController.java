@@ -22,8 +22,11 @@ class ClockController {
     private final ServerClock clock;
     private final AuditLog audit;
     private final TransactionTemplate tx;
+    private final org.springframework.context.ApplicationEventPublisher events;
 
-    ClockController(ServerClock clock, AuditLog audit, PlatformTransactionManager transactions) {
+    ClockController(ServerClock clock, AuditLog audit, PlatformTransactionManager transactions,
+                    org.springframework.context.ApplicationEventPublisher events) {
+        this.events = events;
         this.clock = clock;
         this.audit = audit;
         this.tx = new TransactionTemplate(transactions);
@@ -48,6 +51,8 @@ class ClockController {
         Instant before = clock.instant();
         Instant now = clock.set(form.now());
         tx.executeWithoutResult(status -> audit.record("set", "clock", 0, new ClockView(before, true), new ClockView(now, true)));
-        return new ClockView(now, true);
+        // What the new time has ended (requests whose nights are over) is settled before the answer goes out.
+        events.publishEvent(new ClockMoved(before, now));
+        return new ClockView(clock.instant(), true);
     }
 }

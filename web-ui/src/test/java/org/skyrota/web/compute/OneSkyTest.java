@@ -89,8 +89,9 @@ class OneSkyTest {
         openLow = telescope(openSite, "O low", 5, true, "V");
         telescope(highSite, "H high", 50, true, "V");
         long program = created(api.post("/api/programs", COORD, "{\"code\":\"SKY\",\"title\":\"One sky\","
-                + "\"principalInvestigator\":\"Dr. Sky\",\"active\":true,\"grants\":[{\"telescopeId\":" + walledLow
-                + ",\"hours\":40,\"firstNight\":\"2027-01-01\",\"lastNight\":\"2027-01-31\"}]}"));
+                + "\"principalInvestigator\":\"Dr. Sky\",\"active\":true,\"grants\":[{"
+                // A grant for the whole network: each telescope's candidates are the sky's alone.
+                + "\"hours\":40,\"firstNight\":\"2027-01-01\",\"lastNight\":\"2027-01-31\"}]}"));
         requestId = created(api.post("/api/requests", COORD, "{\"programId\":" + program + ",\"owner\":\"skyowner\","
                 + "\"targetName\":\"invented field east\",\"ra\":120,\"dec\":20,\"exposures\":[{\"filter\":\"V\","
                 + "\"seconds\":60,\"count\":10}],\"minAltitudeDeg\":15,\"earliestNight\":\"" + FIRST + "\","

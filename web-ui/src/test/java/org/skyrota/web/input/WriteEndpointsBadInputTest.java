@@ -78,6 +78,8 @@ class WriteEndpointsBadInputTest {
     static long putProgramId;
     static long draftRequestId;
     static String visitId;
+    /** A published visit still ahead of the server's clock when the endpoints are tried: overrides change only those. */
+    static String aheadVisitId;
     /** The published start of {@link #visitId}: a report's valid observedAt (not before its night, not in the future). */
     static String visitStart;
     static String reportsToken;
@@ -86,7 +88,7 @@ class WriteEndpointsBadInputTest {
      * A write endpoint: method, path, who calls it, a valid body, its field paths, and the statuses a valid or
      * accepted body may get. Placeholders: #N unique per try, #P program, #S site, #T telescope, #I instrument (#P2,
      * #S2, #T2, #I2: others of each, only ever changed by the PUTs, so that one PUT's change cannot make another
-     * endpoint's refusal name a different field), #R a draft request, #X a published visit, #V the resource's
+     * endpoint's refusal name a different field), #R a draft request, #X a published visit that has happened, #Y one still ahead, #V the resource's
      * current version (read just before the try), #O the published start of #X.
      */
     record Endpoint(String method, String path, String role, String body, List<String> fields, Set<Integer> passes) {
@@ -108,7 +110,8 @@ class WriteEndpointsBadInputTest {
                     .replace("#T2", Long.toString(putTelescopeId)).replace("#I2", Long.toString(putInstrumentId))
                     .replace("#P", Long.toString(programId)).replace("#S", Long.toString(siteId))
                     .replace("#T", Long.toString(telescopeId)).replace("#I", Long.toString(instrumentId))
-                    .replace("#R", Long.toString(draftRequestId)).replace("#X", visitId).replace("#O", visitStart);
+                    .replace("#R", Long.toString(draftRequestId)).replace("#X", visitId).replace("#O", visitStart)
+                    .replace("#Y", aheadVisitId);
         }
 
         @Override
@@ -186,9 +189,9 @@ class WriteEndpointsBadInputTest {
                 new Endpoint("PUT", "/api/plans/draft/nights", "COORDINATOR", "{\"telescopeId\":#T,\"night\":\"2027-01-10\","
                         + "\"state\":\"locked\",\"reason\":\"dome repair #N\"}", List.of("telescopeId", "siteId", "night", "state", "reason"),
                         changed),
-                new Endpoint("POST", "/api/visits/#X/move?dryRun=true", "COORDINATOR", "{\"telescopeId\":#T,\"start\":\"2027-01-10T20:00:00Z\"}",
+                new Endpoint("POST", "/api/visits/#Y/move?dryRun=true", "COORDINATOR", "{\"telescopeId\":#T,\"start\":\"2027-01-20T20:00:00Z\"}",
                         List.of("telescopeId", "start"), changed),
-                new Endpoint("POST", "/api/visits/#X/pin?dryRun=true", "COORDINATOR", "{\"telescopeId\":#T,\"start\":\"2027-01-10T20:00:00Z\"}",
+                new Endpoint("POST", "/api/visits/#Y/pin?dryRun=true", "COORDINATOR", "{\"telescopeId\":#T,\"start\":\"2027-01-20T20:00:00Z\"}",
                         List.of("telescopeId", "start"), changed));
     }
 
@@ -254,8 +257,14 @@ class WriteEndpointsBadInputTest {
                 + "\"latestNight\":\"2027-01-11\",\"priority\":2}");
         assertThat(send("POST", "/api/requests/" + id + "/submit?version=0", "COORDINATOR", "").getStatus()).isEqualTo(200);
         assertThat(send("POST", "/api/requests/" + id + "/accept?version=1", "COORDINATOR", "").getStatus()).isEqualTo(200);
+        // A second one on later nights, still ahead when the clock has moved past the first one's visit.
+        long later = created("/api/requests", "{\"programId\":" + programId + ",\"targetName\":\"NGC 2168\",\"ra\":92.2,"
+                + "\"dec\":24.3,\"exposures\":[{\"filter\":\"V\",\"seconds\":60,\"count\":5}],\"earliestNight\":\"2027-01-20\","
+                + "\"latestNight\":\"2027-01-21\",\"priority\":2}");
+        assertThat(send("POST", "/api/requests/" + later + "/submit?version=0", "COORDINATOR", "").getStatus()).isEqualTo(200);
+        assertThat(send("POST", "/api/requests/" + later + "/accept?version=1", "COORDINATOR", "").getStatus()).isEqualTo(200);
         MockHttpServletResponse run = send("POST", "/api/planner/runs", "COORDINATOR",
-                "{\"firstNight\":\"2027-01-10\",\"lastNight\":\"2027-01-11\",\"seconds\":1}");
+                "{\"firstNight\":\"2027-01-10\",\"lastNight\":\"2027-01-21\",\"seconds\":1}");
         assertThat(run.getStatus()).as(run.getContentAsString()).isEqualTo(202);
         long runId = ((Number) JsonPath.read(run.getContentAsString(), "$.id")).longValue();
         assertThat(awaitEnd(runId)).isEqualTo("finished");
@@ -263,11 +272,14 @@ class WriteEndpointsBadInputTest {
         long revision = ((Number) JsonPath.read(draft, "$.revision")).longValue();
         MockHttpServletResponse published = send("POST", "/api/plans/draft/publish?revision=" + revision, "COORDINATOR", "");
         assertThat(published.getStatus()).as(published.getContentAsString()).isEqualTo(200);
-        List<String> visits = JsonPath.read(published.getContentAsString(), "$.visits[*].id");
+        List<String> visits = JsonPath.read(published.getContentAsString(), "$.plan.visits[*].id");
         assertThat(visits).isNotEmpty();
         visitId = visits.get(0);
-        visitStart = JsonPath.read(published.getContentAsString(), "$.visits[0].start");
-        return ((Number) JsonPath.read(published.getContentAsString(), "$.visits[0].telescopeId")).longValue();
+        List<String> ahead = JsonPath.read(published.getContentAsString(), "$.plan.visits[?(@.requestId == " + later + ")].id");
+        assertThat(ahead).as("the later request's visit").isNotEmpty();
+        aheadVisitId = ahead.get(0);
+        visitStart = JsonPath.read(published.getContentAsString(), "$.plan.visits[0].start");
+        return ((Number) JsonPath.read(published.getContentAsString(), "$.plan.visits[0].telescopeId")).longValue();
     }
 
     /** Waits for a planner run to end and answers its state. */

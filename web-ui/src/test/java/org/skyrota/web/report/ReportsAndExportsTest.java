@@ -96,7 +96,7 @@ class ReportsAndExportsTest {
         Answer draft = api.get("/api/plans/draft", COORD);
         Answer p = api.post("/api/plans/draft/publish?revision=" + draft.id("$.revision"), COORD, null);
         assertThat(p.status()).isEqualTo(200);
-        assertThat(p.<List<Object>>json("$.visits")).isNotEmpty();
+        assertThat(p.<List<Object>>json("$.plan.visits")).isNotEmpty();
         return p;
     }
 
@@ -114,7 +114,7 @@ class ReportsAndExportsTest {
 
     /** A report observed at the visit's published start; the server's clock is moved past it first. */
     String report(String visitId, String outcome) {
-        List<String> starts = published.json("$.visits[?(@.id == '" + visitId + "')].start");
+        List<String> starts = published.json("$.plan.visits[?(@.id == '" + visitId + "')].start");
         Instant observedAt = starts.isEmpty() ? Instant.parse("2027-01-11T01:00:00Z") : Instant.parse(starts.get(0));
         reached(observedAt);
         return "{\"visitId\":\"" + visitId + "\",\"outcome\":\"" + outcome + "\",\"reason\":\"clouds\",\"observedAt\":\""
@@ -134,12 +134,12 @@ class ReportsAndExportsTest {
      */
     @Test
     void anObservedAtInTheFutureOrBeforeTheVisitsNightIsRefused() {
-        String visit = published.<List<String>>json("$.visits[*].id").get(0);
-        String night = published.json("$.visits[0].night");
+        String visit = published.<List<String>>json("$.plan.visits[*].id").get(0);
+        String night = published.json("$.plan.visits[0].night");
         Instant nightStart = LocalDate.parse(night).atTime(12, 0)
                 .atZone(ZoneId.of("Europe/Rome")).toInstant();
         String reports = token("reports", network.telescopeId);
-        reached(Instant.parse(published.<String>json("$.visits[0].start")));
+        reached(Instant.parse(published.<String>json("$.plan.visits[0].start")));
         for (Instant refused : List.of(Instant.parse("9999-12-31T00:00:00Z"), Instant.parse("1900-01-01T00:00:00Z"),
                 nightStart.minusSeconds(1), clock.instant().plus(Duration.ofDays(1)))) {
             Answer a = api.post("/api/reports", ApiClient.bearer(reports), "{\"visitId\":\"" + visit
@@ -155,7 +155,7 @@ class ReportsAndExportsTest {
 
     @Test
     void reportsNeedALiveTokenOfTheReportsScopeForTheVisitsTelescope() {
-        List<String> ids = published.json("$.visits[*].id");
+        List<String> ids = published.json("$.plan.visits[*].id");
         String reports = token("reports", network.telescopeId);
         String read = token("read", network.telescopeId);
 
@@ -188,7 +188,7 @@ class ReportsAndExportsTest {
                 "{\"visitId\":\"" + ids.get(0) + "\",\"outcome\":\"partial\"}");
         assertThat(untimed.status()).as(untimed.body()).isEqualTo(201);
         assertThat(Instant.parse(untimed.json("$.observedAt")))
-                .isEqualTo(Instant.parse(published.json("$.visits[0].start")));
+                .isEqualTo(Instant.parse(published.json("$.plan.visits[0].start")));
         long tokenId = api.get("/api/tokens", ADMIN).<List<Integer>>json("$[-1:].id").get(0);
         assertThat(tokenId).isPositive();
 
@@ -206,7 +206,7 @@ class ReportsAndExportsTest {
     @Test
     void aDoneVisitCountsAsObservedAndAFailedOneIsPlannedAgain() {
         // The repeat-spacing test reports the first request's visits: use the others.
-        List<String> ids = published.<List<String>>json("$.visits[*].id").stream()
+        List<String> ids = published.<List<String>>json("$.plan.visits[*].id").stream()
                 .filter(id -> !id.startsWith(network.studentRequestId + "-")).toList();
         assertThat(ids.size()).isGreaterThanOrEqualTo(2);
         String reports = token("reports", network.telescopeId);
@@ -233,9 +233,14 @@ class ReportsAndExportsTest {
                 + "\",\"lastNight\":\"" + PlanningNetwork.LAST_NIGHT + "\",\"seconds\":1}");
         assertThat((String) api.awaitRunEnd(started.id("$.id"), COORD, Duration.ofSeconds(180)).json("$.state")).isEqualTo("finished");
         Answer draft = api.get("/api/plans/draft", COORD);
-        List<String> inDraft = draft.json("$.visits[*].id");
-        inDraft.addAll(draft.json("$.unplaced[*].visitId"));
-        assertThat(inDraft).doesNotContain(ids.get(0)).contains(ids.get(1));
+        // Both stay in history as they were published, saying how they went; the failed repeat is planned again
+        // under a new visit id (placed ahead, or left out with its reason), the observed one is not.
+        assertThat(draft.<List<String>>json("$.visits[?(@.id == '" + ids.get(0) + "')].status")).containsExactly("observed");
+        assertThat(draft.<List<String>>json("$.visits[?(@.id == '" + ids.get(1) + "')].status")).containsExactly("failed");
+        String failedRequest = ids.get(1).split("-")[0];
+        List<String> again = draft.json("$.visits[?(@.requestId == " + failedRequest + " && @.status == 'planned')].id");
+        again.addAll(draft.json("$.unplaced[?(@.requestId == " + failedRequest + ")].visitId"));
+        assertThat(again).isNotEmpty().doesNotContain(ids.get(1));
         long requestId = Long.parseLong(ids.get(0).split("-")[0]);
         Answer status = api.get("/api/requests/" + requestId + "/plan-status", COORD);
         assertThat(status.<List<String>>json("$.visits[?(@.visitId == '" + ids.get(0) + "')].status")).containsExactly("observed");
@@ -260,14 +265,14 @@ class ReportsAndExportsTest {
         // The network's first request has two repeats 24 h apart with 4 h of tolerance: at least 20 h start to start.
         String first = network.studentRequestId + "-1";
         String second = network.studentRequestId + "-2";
-        List<String> publishedIds = published.json("$.visits[*].id");
+        List<String> publishedIds = published.json("$.plan.visits[*].id");
         assertThat(publishedIds).contains(first);
         String reports = token("reports", network.telescopeId);
         // Reported as taken at 06:00 local at the end of the first night, so that the second may not start before
         // 02:00 local on the next: later than the planner would choose on its own (near the meridian, about 23:30),
         // yet with the target still high enough (above 30° until about 04:00).
         Instant observedAt = Instant.parse("2027-01-11T05:00:00Z");
-        List<String> publishedStart = published.json("$.visits[?(@.id == '" + second + "')].start");
+        List<String> publishedStart = published.json("$.plan.visits[?(@.id == '" + second + "')].start");
         assertThat(publishedStart).as("the second repeat was published too close, so the rule has to move it")
                 .hasSize(1);
         assertThat(Instant.parse(publishedStart.get(0))).isBefore(observedAt.plus(Duration.ofHours(20)));
@@ -285,10 +290,11 @@ class ReportsAndExportsTest {
         // Still placeable on the second night, late enough: the rule must leave it a place, not only take one away.
         assertThat(starts).as(draft.body()).hasSize(1);
         assertThat(Instant.parse(starts.get(0))).isAfterOrEqualTo(observedAt.plus(Duration.ofHours(20)));
-        assertThat(draft.<List<String>>json("$.visits[*].id")).doesNotContain(first);
+        // The observed repeat stays in history, once, as observed.
+        assertThat(draft.<List<String>>json("$.visits[?(@.id == '" + first + "')].status")).containsExactly("observed");
 
         // A coordinator may still put it back where it was published: allowed, but named as a broken hard rule.
-        List<Integer> publishedTelescope = published.json("$.visits[?(@.id == '" + second + "')].telescopeId");
+        List<Integer> publishedTelescope = published.json("$.plan.visits[?(@.id == '" + second + "')].telescopeId");
         Answer back = api.post("/api/visits/" + second + "/move?dryRun=true", COORD, "{\"telescopeId\":"
                 + publishedTelescope.get(0) + ",\"start\":\"" + publishedStart.get(0) + "\"}");
         assertThat(back.status()).as(back.body()).isEqualTo(200);
@@ -297,7 +303,7 @@ class ReportsAndExportsTest {
 
     @Test
     void thePublishedPlanExportsAsCsvPerSiteAndNight() throws Exception {
-        List<Map<String, Object>> visits = published.json("$.visits");
+        List<Map<String, Object>> visits = published.json("$.plan.visits");
         String night = (String) visits.get(0).get("night");
         Answer csv = api.get("/api/plans/published.csv?siteId=" + network.siteId + "&night=" + night, COORD);
         assertThat(csv.status()).isEqualTo(200);
@@ -325,7 +331,7 @@ class ReportsAndExportsTest {
 
     @Test
     void thePublishedPlanAndARequestersOwnVisitsExportAsICalendar() throws Exception {
-        List<Map<String, Object>> visits = published.json("$.visits");
+        List<Map<String, Object>> visits = published.json("$.plan.visits");
         Answer ics = api.get("/api/plans/published.ics?siteId=" + network.siteId, STUDENT);
         assertThat(ics.status()).isEqualTo(200);
         assertThat(ics.contentType()).startsWith("text/calendar");

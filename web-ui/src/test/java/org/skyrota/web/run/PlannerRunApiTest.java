@@ -236,8 +236,8 @@ class PlannerRunApiTest {
         Answer d = draft();
         Answer published = api.post("/api/plans/draft/publish?revision=" + d.id("$.revision"), COORD, null);
         assertThat(published.status()).as(published.body()).isEqualTo(200);
-        assertThat((String) published.json("$.state")).isEqualTo("published");
-        assertThat(published.<List<String>>json("$.visits[*].id")).containsExactlyInAnyOrderElementsOf(d.json("$.visits[*].id"));
+        assertThat((String) published.json("$.plan.state")).isEqualTo("published");
+        assertThat(published.<List<String>>json("$.plan.visits[*].id")).containsExactlyInAnyOrderElementsOf(d.json("$.visits[*].id"));
         Answer again = api.get("/api/plans/published", STUDENT);
         assertThat(again.status()).isEqualTo(200);
         assertThat(again.id("$.revision")).isEqualTo(published.id("$.revision"));
@@ -275,7 +275,7 @@ class PlannerRunApiTest {
         // A run never touches the published plan; a stale revision cannot be published.
         runToTheEnd(1);
         assertThat(api.get("/api/plans/published", COORD).<List<String>>json("$.visits[*].id"))
-                .containsExactlyInAnyOrderElementsOf(published.json("$.visits[*].id"));
+                .containsExactlyInAnyOrderElementsOf(published.json("$.plan.visits[*].id"));
         assertThat(api.post("/api/plans/draft/publish?revision=" + d.id("$.revision"), COORD, null).status()).isEqualTo(409);
         Answer audit = api.get("/api/audit?entityType=plan", COORD);
         assertThat(audit.<List<String>>json("$.items[*].action")).contains("publish", "override");

@@ -11,6 +11,7 @@ import java.nio.file.Path;
 import java.time.Duration;
 import java.time.Instant;
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.List;
 import java.util.Map;
 import java.util.concurrent.TimeUnit;
@@ -39,6 +40,9 @@ public final class ServerProcess implements AutoCloseable {
         return Path.of(System.getProperty("skyrota.jar", "target/skyrota.jar"));
     }
 
+    /** The moment the tests' servers start at (the same as test resources' config/application.properties). */
+    public static final String TEST_CLOCK = "2026-12-01T12:00:00Z";
+
     public static int freePort() throws IOException {
         try (ServerSocket socket = new ServerSocket(0)) {
             return socket.getLocalPort();
@@ -50,6 +54,11 @@ public final class ServerProcess implements AutoCloseable {
         int port = freePort();
         String java = Path.of(System.getProperty("java.home"), "bin", "java").toString();
         List<String> command = new ArrayList<>(List.of(java, "-Xmx512m", "-jar", jar().toString(), "--server.port=" + port));
+        // The tests' own moment (as every in-process test has it), unless the caller names another: the nights the
+        // tests plan lie ahead of it whenever the suite runs.
+        if (Arrays.stream(args).noneMatch(a -> a.startsWith("--skyrota.clock="))) {
+            command.add("--skyrota.clock=" + TEST_CLOCK);
+        }
         command.addAll(List.of(args));
         ProcessBuilder builder = new ProcessBuilder(command).redirectErrorStream(true)
                 .redirectOutput(ProcessBuilder.Redirect.appendTo(log.toFile()));

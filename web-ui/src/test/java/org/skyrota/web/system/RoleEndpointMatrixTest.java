@@ -222,6 +222,8 @@ class RoleEndpointMatrixTest {
                 new Row("GET", "/api/calendar/mine.ics", "/api/calendar/mine.ics", null, "401 200 200 200 200 403 403 401 200",
                         "the caller's own visits; the feed token opens this and nothing else"),
                 new Row("GET", "/api/programs/usage", "/api/programs/usage", null, SIGNED_IN_READ, ""),
+                new Row("GET", "/api/programs/{id}/usage", "/api/programs/" + network.programId + "/usage", null,
+                        SIGNED_IN_READ, "one program's grant ledger"),
                 new Row("GET", "/api/requests/{id}/plan-status", "/api/requests/" + mine + "/plan-status", null,
                         "401 200 404 200 200 403 403 401 401", "another's request does not exist for a requester: 404"),
                 new Row("GET", "/api/requests/{id}/observability", "/api/requests/" + mine + "/observability?from=2027-01-10&to=2027-01-11",

@@ -15,8 +15,10 @@ import org.skyrota.sky.coords.Sexagesimal;
 
 /**
  * Writes a plan as an iCalendar object (RFC 5545): one VEVENT per visit, times in UTC. Each visit's
- * UID is {@code visit-<id>@skyrota}, stable across revisions, and its SEQUENCE is the plan
- * revision, so that a calendar that subscribed to an earlier revision updates the event in place.
+ * UID is {@code visit-<id>@skyrota}, stable across revisions, and its SEQUENCE is the published
+ * revision in which the visit last changed (the plan's revision where the plan does not say), so that
+ * a calendar that subscribed earlier updates the event in place, and leaves an unchanged one alone. A
+ * visit the plan gave up comes once more, with STATUS:CANCELLED and a higher SEQUENCE.
  * DTSTAMP is the plan's publication time, or the time of writing for a draft.
  */
 public final class ICalendarPlanExporter implements PlanExporter {
@@ -55,6 +57,21 @@ public final class ICalendarPlanExporter implements PlanExporter {
         return "ics";
     }
 
+    private void event(ContentLines ics, PlanRecord plan, PlannedVisitRecord v, Instant stamp, String status) {
+        ics.line("BEGIN", "VEVENT")
+                .line("UID", "visit-" + v.visitId() + "@skyrota")
+                .utc("DTSTAMP", stamp)
+                .utc("DTSTART", v.start())
+                .utc("DTEND", v.end())
+                .line("SEQUENCE", Long.toString(Math.max(0, v.sequence() >= 0 ? v.sequence() : plan.revision())))
+                .text("SUMMARY", v.title() + " (" + v.targetName() + ")")
+                .text("LOCATION", v.site() + ", " + v.telescope())
+                .text("DESCRIPTION", description(plan, v))
+                .line("STATUS", status)
+                .line("TRANSP", status.equals("CANCELLED") ? "TRANSPARENT" : "OPAQUE")
+                .line("END", "VEVENT");
+    }
+
     @Override
     public void write(PlanRecord plan, OutputStream out) throws IOException {
         Instant stamp = plan.publishedAt() != null ? plan.publishedAt() : clock.instant();
@@ -65,18 +82,12 @@ public final class ICalendarPlanExporter implements PlanExporter {
                 // No METHOD: this is a calendar file, not an iTIP message (RFC 5546), so no ORGANIZER is owed.
                 .line("CALSCALE", "GREGORIAN");
         for (PlannedVisitRecord v : plan.visits()) {
-            ics.line("BEGIN", "VEVENT")
-                    .line("UID", "visit-" + v.visitId() + "@skyrota")
-                    .utc("DTSTAMP", stamp)
-                    .utc("DTSTART", v.start())
-                    .utc("DTEND", v.end())
-                    .line("SEQUENCE", Long.toString(Math.max(0, plan.revision())))
-                    .text("SUMMARY", v.title() + " (" + v.targetName() + ")")
-                    .text("LOCATION", v.site() + ", " + v.telescope())
-                    .text("DESCRIPTION", description(plan, v))
-                    .line("STATUS", plan.publishedAt() != null ? "CONFIRMED" : "TENTATIVE")
-                    .line("TRANSP", "OPAQUE")
-                    .line("END", "VEVENT");
+            event(ics, plan, v, stamp, plan.publishedAt() != null ? "CONFIRMED" : "TENTATIVE");
+        }
+        // A visit the plan gave up keeps its UID and comes with a higher SEQUENCE, so that a subscribed calendar
+        // removes it (RFC 5545 section 3.8.1.11, STATUS:CANCELLED).
+        for (PlannedVisitRecord v : plan.cancelled()) {
+            event(ics, plan, v, stamp, "CANCELLED");
         }
         ics.line("END", "VCALENDAR");
         out.write(ics.bytes());
