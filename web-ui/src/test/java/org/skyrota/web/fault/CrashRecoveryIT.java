@@ -211,11 +211,11 @@ class CrashRecoveryIT {
             assertThat((String) run.json("$.state")).as(run.body()).isEqualTo("failed");
             assertThat((String) run.json("$.message")).contains("server stopped");
             assertThat((Object) run.json("$.revision")).isNull();
-            assertThat(api.get("/api/plans/published", coordinator).body()).isEqualTo(published);
+            assertThat(withoutNow(api.get("/api/plans/published", coordinator).body())).isEqualTo(withoutNow(published));
 
             long next = finishedRun(api, coordinator, 2);
             assertThat(api.get("/api/planner/runs/" + next, coordinator).id("$.revision")).isPositive();
-            assertThat(api.get("/api/plans/published", coordinator).body()).isEqualTo(published);
+            assertThat(withoutNow(api.get("/api/plans/published", coordinator).body())).isEqualTo(withoutNow(published));
         }
     }
 
@@ -237,5 +237,10 @@ class CrashRecoveryIT {
         Answer run = api.get("/api/planner/runs/" + id, auth);
         assertThat((String) run.json("$.state")).as(run.body()).isEqualTo("finished");
         return id;
+    }
+
+    /** A plan view without its "now" (the server's time when it answered), which moves on between two reads. */
+    private static String withoutNow(String planView) {
+        return planView.replaceAll("\"now\":\"[^\"]*\"", "");
     }
 }
