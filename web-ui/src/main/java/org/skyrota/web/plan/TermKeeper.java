@@ -44,7 +44,8 @@ public class TermKeeper {
     }
 
     @Scheduled(fixedDelayString = "${skyrota.term.keeper-interval:PT1M}", initialDelayString = "PT10S")
-    void everyMinute() {
+    @Transactional
+    public void everyMinute() {
         try {
             catchUp();
         } catch (RuntimeException e) {
@@ -54,6 +55,7 @@ public class TermKeeper {
 
     /** After the clock was moved forward: what the new time has ended is settled at once. */
     @org.springframework.context.event.EventListener
+    @Transactional
     public void clockMoved(org.skyrota.web.system.ClockMoved moved) {
         catchUp();
     }

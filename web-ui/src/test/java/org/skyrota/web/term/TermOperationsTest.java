@@ -52,6 +52,7 @@ class TermOperationsTest {
     void threeWeeksOfDailyOperationsKeepEveryInvariant() throws IOException {
         TermSimulation.Outcome outcome = new TermSimulation(new ApiClient(port), ADMIN_PASSWORD,
                 dataDir.resolve("conditions.csv"), TermSimulation.Scale.test()).run();
+        System.out.println("term: " + outcome);
         assertThat(outcome.broken()).as("broken invariants").isEmpty();
         assertThat(outcome.failedRuns()).isZero();
         assertThat(outcome.grantOverruns()).isZero();
@@ -59,5 +60,9 @@ class TermOperationsTest {
         assertThat(outcome.runs()).isGreaterThanOrEqualTo(outcome.days());
         assertThat(outcome.placedHours()).isPositive();
         assertThat(outcome.observedHours()).isPositive();
+        // History grew, and a withdrawn request's published visits reached the calendar as cancellations.
+        assertThat(outcome.historyVisits()).isPositive();
+        assertThat(outcome.withdrawn()).isPositive();
+        assertThat(outcome.cancelledSeen()).isPositive();
     }
 }

@@ -65,7 +65,8 @@ public final class TermSimulation {
 
     /** What the term did. */
     public record Outcome(int days, int runs, int failedRuns, List<String> broken, double placedHours,
-                          double observedHours, int grantOverruns, List<Double> runSeconds) {
+                          double observedHours, int grantOverruns, List<Double> runSeconds, int checks,
+                          int historyVisits, int cancelledSeen, int withdrawn) {
 
         public double medianRunSeconds() {
             List<Double> sorted = runSeconds.stream().sorted().toList();
@@ -105,6 +106,8 @@ public final class TermSimulation {
     private int failedRuns;
     private int runs;
     private int grantOverruns;
+    private int checks;
+    private final Set<String> cancelledSeen = new HashSet<>();
     /** Every published visit ever seen to have started: id to "telescope start end". */
     private final Map<String, String> historySeen = new HashMap<>();
     /** The published plan's placed visits as last read: id to "telescope start end". */
@@ -143,7 +146,7 @@ public final class TermSimulation {
                     .toSeconds() / 3600.0;
         }
         return new Outcome(scale.days(), runs, failedRuns, List.copyOf(broken), placed, observed, grantOverruns,
-                List.copyOf(runSeconds));
+                List.copyOf(runSeconds), checks, historySeen.size(), cancelledSeen.size(), withdrawn.size());
     }
 
     // ---- the network ----
@@ -151,10 +154,10 @@ public final class TermSimulation {
     private void setUp() throws IOException {
         moveClock(START.minusDays(1).atTime(12, 0).toInstant(java.time.ZoneOffset.UTC));
         created(api.post("/api/accounts", admin, "{\"username\":\"term-coordinator\",\"password\":\"" + PASSWORD
-                + "\",\"role\":\"coordinator\"}"));
+                + "\",\"role\":\"coordinator\"}"), "$.username");
         for (int i = 1; i <= 3; i++) {
             created(api.post("/api/accounts", admin, "{\"username\":\"term-student" + i + "\",\"password\":\"" + PASSWORD
-                    + "\",\"role\":\"requester\"}"));
+                    + "\",\"role\":\"requester\"}"), "$.username");
             students.add(ApiClient.basic("term-student" + i, PASSWORD));
         }
         // Invented sites in both hemispheres: a northern moor, a southern plateau, a desert.
@@ -395,6 +398,7 @@ public final class TermSimulation {
 
     private void check(String step, boolean afterFullRun) {
         String at = today + " after " + step + ": ";
+        checks++;
         int before = broken.size();
         Answer published = api.get("/api/plans/published", coordinator);
         Answer draft = api.get("/api/plans/draft", coordinator);
@@ -518,6 +522,7 @@ public final class TermSimulation {
             broken.add(at + "the calendar export's events differ from the published plan: " + live.size() + " events, "
                     + plan.size() + " visits");
         }
+        cancelledSeen.addAll(cancelled);
         for (String uid : cancelled) {
             if (plan.containsKey(uid)) {
                 broken.add(at + "the calendar cancels " + uid + ", which the published plan holds");
