@@ -269,10 +269,29 @@ function runPanel(ctx, draft, firstNight, lastNight) {
     try { await api(`/api/planner/runs/${run.id}`, { method: 'DELETE' }); text.textContent = 'Cancelling…'; } catch (e) { text.textContent = e.message; }
   });
   publish.addEventListener('click', async () => {
+    if (!window.confirm('Publish this draft? Telescopes and students will follow the published plan.')) return;
+    const send = async (query) => {
+      const p = await api('/api/plans/draft/publish', { method: 'POST', query });
+      say(p.message || `Draft revision ${draft.revision} published.`, p.changed === false ? 'info' : 'ok');
+    };
     try {
-      const p = await api('/api/plans/draft/publish', { method: 'POST', query: { revision: draft.revision } });
-      say(`Draft revision ${p.revision ?? draft.revision} published.`, 'ok');
-    } catch (e) { say(e.message, 'error'); }
+      await send({ revision: draft.revision });
+    } catch (e) {
+      const broken = e.problem && e.problem.broken;
+      if (e.status === 409 && Array.isArray(broken) && broken.length) {
+        // The draft breaks hard rules: name them, and publish only with the coordinator's stated reason.
+        const list = broken.map(b => `${b.rule}${b.visits && b.visits.length ? ` (visits ${b.visits.join(', ')})` : ''}`
+          + `${b.program ? ` (program ${b.program}: ${b.grant})` : ''}`).join('\n');
+        const reason = window.prompt(`The draft breaks hard rules:\n${list}\n\nTo publish it all the same, say why:`);
+        if (reason && reason.trim()) {
+          try { await send({ revision: draft.revision, force: true, reason: reason.trim() }); } catch (e2) { say(e2.message, 'error'); }
+        } else {
+          say(e.message, 'error');
+        }
+      } else {
+        say(e.message, 'error');
+      }
+    }
     await ctx.reload();
   });
   return [el('h2', {}, 'Planner run'),

@@ -194,7 +194,7 @@ public class Publishing {
             after.put("broken", broken);
         }
         audit.record("publish", "plan", copy.getId(), before, after);
-        String message = String.format("Published revision %d: %d visit%s new, %d moved, %d cancelled, %d unchanged%s",
+        String message = String.format("Revision %d published: %d visit%s new, %d moved, %d cancelled, %d unchanged%s",
                 copy.getId(), placed, placed == 1 ? "" : "s", moved, cancelled, same,
                 force && !broken.isEmpty() ? "; published despite broken hard rules: " + why : "");
         return new PublishView(copy.getId(), true, message, placed, moved, cancelled, same,

@@ -350,6 +350,8 @@ class DashboardBrowserTest {
         assertThat(kept.getText()).contains("(pinned)");
         assertThat(kept.getDomAttribute("title")).isEqualTo(slot);
         browser.findElement(By.id("publish")).click();
+        // Publishing asks first: the plan is a promise to telescopes and students.
+        wait.until(ExpectedConditions.alertIsPresent()).accept();
         wait.until(ExpectedConditions.textToBePresentInElementLocated(By.id("status"), "published"));
         shot("18-published");
 
