@@ -90,16 +90,6 @@ public class Publishing {
             throw new InvalidParametersException(List.of(new FieldProblem("reason", "at most 500 characters")));
         }
         List<PlanVisit> draftVisits = term.draftVisits();
-        PlanScorer.Scored scored = scorer.score(term, draft.getFirstNight(), draft.getLastNight(), draftVisits,
-                draft.getNights());
-        List<BrokenRule> broken = scored.broken().stream().map(b -> new BrokenRule(b.rule(), b.visits(),
-                b.programId() == null ? null : programCode(b.programId()), b.grant())).toList();
-        if (!broken.isEmpty() && !force) {
-            String rules = broken.stream().map(BrokenRule::rule).distinct().collect(Collectors.joining(", "));
-            throw new ConflictException("The draft breaks hard rules (" + rules + "): mend it, or publish it all the"
-                    + " same with force=true and a reason", Map.of("broken", broken));
-        }
-
         Set<Long> accepted = new HashSet<>();
         Map<Long, RequestState> stateOf = new HashMap<>();
         requests.findAll().forEach(r -> {
@@ -166,6 +156,17 @@ public class Publishing {
                 && sameLeftOut(old, visits)) {
             return new PublishView(old.getId(), false, "Nothing changed since revision " + old.getId()
                     + " was published, so nothing new was published", 0, 0, 0, same, null, null);
+        }
+
+        // Scored only when something is to be published: the plan ahead must keep every hard rule, or be forced.
+        PlanScorer.Scored scored = scorer.score(term, draft.getFirstNight(), draft.getLastNight(), draftVisits,
+                draft.getNights());
+        List<BrokenRule> broken = scored.broken().stream().map(b -> new BrokenRule(b.rule(), b.visits(),
+                b.programId() == null ? null : programCode(b.programId()), b.grant())).toList();
+        if (!broken.isEmpty() && !force) {
+            String rules = broken.stream().map(BrokenRule::rule).distinct().collect(Collectors.joining(", "));
+            throw new ConflictException("The draft breaks hard rules (" + rules + "): mend it, or publish it all the"
+                    + " same with force=true and a reason", Map.of("broken", broken));
         }
 
         Map<String, Object> before = null;
