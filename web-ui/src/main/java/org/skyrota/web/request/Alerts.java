@@ -250,8 +250,16 @@ public class Alerts {
             return new Outcome(accepted, null, "No re-plan was started: this alert's nights (" + nights + ") are over at every site.");
         }
         try {
-            return new Outcome(accepted, runs.start(new RunForm(first, last, null, replanSeconds, null),
-                    "alert: request " + accepted.id() + " (" + accepted.targetName() + ")"), null);
+            RunView run = runs.start(new RunForm(first, last, null, replanSeconds, null),
+                    "alert: request " + accepted.id() + " (" + accepted.targetName() + ")");
+            // A run fails, if it does, while it reads the plan and the sky, in its first seconds: the sender is told
+            // then. A later failure is in the run's message and in the audit log, under the alert's purpose.
+            RunView now = settled(run.id());
+            if ("failed".equals(now.state())) {
+                return new Outcome(accepted, now, "The re-plan run " + now.id() + " failed: " + now.message() + STORED
+                        + " the next run over its nights will plan it.");
+            }
+            return new Outcome(accepted, now, null);
         } catch (ConflictException e) {
             // The request is stored and accepted; the run that is going on, or the next one, will plan it.
             String why = activeRunOver(first, last)
@@ -270,6 +278,22 @@ public class Alerts {
             return new Outcome(accepted, null, "No re-plan was started because of an error on the server (its log says"
                     + " more)." + STORED + " start a run over the nights " + nights + " to plan it.");
         }
+    }
+
+    /** The run once it has ended, or as it stands after three seconds, whichever is first. */
+    private RunView settled(long runId) {
+        long until = System.nanoTime() + 3_000_000_000L;
+        RunView run = runs.get(runId);
+        while (("queued".equals(run.state()) || "running".equals(run.state())) && System.nanoTime() < until) {
+            try {
+                Thread.sleep(100);
+            } catch (InterruptedException e) {
+                Thread.currentThread().interrupt();
+                break;
+            }
+            run = runs.get(runId);
+        }
+        return run;
     }
 
     /** The queued or running run, if any, over nights that overlap {@code first} to {@code last}. */

@@ -332,7 +332,7 @@ public class RunService {
                         + fed.size() + ".")
                         + (feedNotes.isEmpty() ? "" : " " + String.join("; ", feedNotes) + ".");
                 r.end(RunState.FINISHED, clock.instant(), result.score().toString(), message);
-                r.setSummaryJson(json.writeValueAsString(summary));
+                r.setSummaryJson(json.writeValueAsString(summary.withGrants(inputs.accounts(inputs.term(), null))));
                 r.setRevisionId(draft.getId());
             });
             events.done(id, doneData(find(id)));

@@ -16,6 +16,7 @@ import org.skyrota.planning.solver.PlanBound;
 import org.skyrota.planning.solver.PlanResult;
 import org.skyrota.planning.solver.PlannedVisit;
 import org.skyrota.planning.solver.Violation;
+import org.skyrota.web.plan.GrantLedger;
 import org.skyrota.web.plan.PlanInputs;
 import org.skyrota.web.plan.VisitKey;
 
@@ -27,11 +28,20 @@ import org.skyrota.web.plan.VisitKey;
  *
  * @param gapPercent   how far the plan's priority-weighted time is below the upper bound, per cent (0 = it is the best)
  * @param sentence     all of it in one or two sentences
+ * @param grants       every grant's ledger once the run's draft is written (granted, observed, published, draft,
+ *                     remaining hours)
  */
 public record RunSummary(int placedVisits, double placedHours, int leftOutVisits, double leftOutHours,
                          long weightedMinutes, long upperBoundWeightedMinutes, double gapPercent,
                          List<ProgramShare> programs, List<String> overGrant, Against published,
-                         List<Unplannable> unplannable, String sentence) {
+                         List<Unplannable> unplannable, String sentence, List<GrantLedger.Account> grants) {
+
+    /** This summary with the grants' ledger as it stands after the run. */
+    RunSummary withGrants(List<GrantLedger.Account> accounts) {
+        return new RunSummary(placedVisits, placedHours, leftOutVisits, leftOutHours, weightedMinutes,
+                upperBoundWeightedMinutes, gapPercent, programs, overGrant, published, unplannable, sentence,
+                List.copyOf(accounts));
+    }
 
     /** A program's share of the time placed by the run against its share of the grants the run could spend. */
     public record ProgramShare(long programId, String code, double placedHours, double sharePercent,
@@ -135,7 +145,7 @@ public record RunSummary(int placedVisits, double placedHours, int leftOutVisits
                     unplannable.size(), unplannable.size() == 1 ? "" : "s"));
         }
         return new RunSummary(placed, round(placedHours), result.leftOut().size(), round(leftOutHours), weighted, bound,
-                round(gap), programs, over, new Against(kept, moved, dropped), unplannable, s.toString());
+                round(gap), programs, over, new Against(kept, moved, dropped), unplannable, s.toString(), List.of());
     }
 
     private static double round(double x) {
