@@ -260,7 +260,7 @@ function runPanel(ctx, draft, firstNight, lastNight) {
     });
     events.addEventListener('done', e => {
       const p = JSON.parse(e.data);
-      finish(`Run ${p.state}: score ${p.score ?? '—'}${p.message ? ` (${p.message})` : ''}.`);
+      finish(`Run ${p.state}: score ${p.score ?? '—'}${p.message ? ` (${p.message.replace(/\.$/, '')})` : ''}.`);
     });
     events.onerror = () => { if (events.readyState === EventSource.CLOSED) finish('The progress stream closed.'); };
   });
